@@ -1,0 +1,181 @@
+//! Compiling a ruleset into an analyzer: rule terms go through the same surface stage the
+//! text will, so "Universe" in a rule and "universe" in a query meet at one key.
+
+use std::collections::HashMap;
+use std::sync::Arc;
+
+use rustc_hash::FxHashMap;
+
+use super::expand::{CompiledSynonym, Phrase, SynonymTable};
+use super::surface::SurfaceStage;
+use super::{Analyzer, exempt, lemma, stem, stopword};
+use crate::rules::{Diagnostic, ExemptKind, Ruleset, RulesError, SynonymKind, Term};
+
+pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
+    let surface = SurfaceStage::from_pipeline(&ruleset.pipeline);
+    let mut diagnostics = Vec::new();
+    let one_form = |term: &Term, what: &str, diagnostics: &mut Vec<Diagnostic>| {
+        single_form(&surface, term, what, diagnostics)
+    };
+
+    let stopwords = stopword::Stopwords::new(
+        ruleset
+            .pipeline
+            .stopwords
+            .iter()
+            .filter_map(|t| one_form(t, "a stopword", &mut diagnostics)),
+    );
+
+    let mut literals = Vec::new();
+    let mut patterns = Vec::new();
+    for (i, rule) in ruleset.exemptions.iter().enumerate() {
+        match &rule.kind {
+            ExemptKind::Term(term) => {
+                if let Some(form) = one_form(term, "an exempt term", &mut diagnostics) {
+                    literals.push((form, i));
+                }
+            }
+            ExemptKind::Pattern { regex, .. } => patterns.push((regex.clone(), i)),
+        }
+    }
+
+    let mut lemma_map: FxHashMap<String, (String, usize)> = FxHashMap::default();
+    let mut lemma_terms: HashMap<String, &Term> = HashMap::new();
+    for (i, rule) in ruleset.lemmas.iter().enumerate() {
+        let form = one_form(&rule.form, "an irregular form", &mut diagnostics);
+        let lemma = one_form(&rule.lemma, "a lemma", &mut diagnostics);
+        let (Some(form), Some(lemma)) = (form, lemma) else {
+            continue;
+        };
+        if form == lemma {
+            diagnostics.push(self_mapped(&rule.lemma, &form));
+            continue;
+        }
+        match lemma_map.get(&form) {
+            Some((previous, _)) if *previous != lemma => {
+                let first = lemma_terms[&form];
+                diagnostics.push(
+                    Diagnostic::new(
+                        &rule.form.origin.file,
+                        Some(rule.form.origin.position()),
+                        format!(
+                            "{form:?} is given two lemmas: {previous:?} and {lemma:?}",
+                        ),
+                    )
+                    .related(&first.origin.file, first.origin.position())
+                    .help("a form has one lemma; keep the one you mean and remove the other"),
+                );
+            }
+            Some(_) => {} // the same override twice: lint reports it as a duplicate
+            None => {
+                lemma_terms.insert(form.clone(), &rule.form);
+                lemma_map.insert(form, (lemma, i));
+            }
+        }
+    }
+
+    let mut analyzer = Analyzer {
+        surface: surface.clone(),
+        stopwords,
+        exemptions: exempt::Exemptions::new(literals, patterns),
+        lemmas: lemma::Lemmas::new(lemma_map),
+        stem: ruleset.pipeline.stemmer.map(stem::Stem::new),
+        synonyms: SynonymTable::default(),
+        ruleset: Arc::new(Ruleset::default()),
+    };
+
+    let mut compiled = Vec::with_capacity(ruleset.synonyms.len());
+    for rule in &ruleset.synonyms {
+        let mut phrase = |term: &Term| {
+            let p = analyzer.phrase(&term.text);
+            if p.keys.is_empty() {
+                diagnostics.push(
+                    Diagnostic::new(
+                        &term.origin.file,
+                        Some(term.origin.position()),
+                        format!("{:?} has no words left after stopwords are dropped", term.text),
+                    )
+                    .help("remove it from the rule, or take its words off the stopword list"),
+                );
+            }
+            p
+        };
+        let c = match &rule.kind {
+            SynonymKind::Equivalent { members } => {
+                CompiledSynonym::Equivalent(members.iter().map(&mut phrase).collect())
+            }
+            SynonymKind::OneWay { from, to } => CompiledSynonym::OneWay {
+                from: phrase(from),
+                to: to.iter().map(&mut phrase).collect(),
+            },
+        };
+        compiled.push(c);
+    }
+    if !diagnostics.is_empty() {
+        return Err(RulesError::Invalid(diagnostics));
+    }
+    analyzer.synonyms = SynonymTable::new(drop_empty(compiled));
+    analyzer.ruleset = Arc::new(ruleset);
+    Ok(analyzer)
+}
+
+/// Only reached without diagnostics, so no phrase is empty; kept total for safety.
+fn drop_empty(rules: Vec<CompiledSynonym>) -> Vec<CompiledSynonym> {
+    let keep = |p: &Phrase| !p.keys.is_empty();
+    rules
+        .into_iter()
+        .map(|r| match r {
+            CompiledSynonym::Equivalent(m) => CompiledSynonym::Equivalent(m.into_iter().filter(keep).collect()),
+            CompiledSynonym::OneWay { from, to } => CompiledSynonym::OneWay {
+                from,
+                to: to.into_iter().filter(keep).collect(),
+            },
+        })
+        .collect()
+}
+
+/// The surface form of a term that must be one token (a stopword, an exempt term, a form
+/// or lemma).
+fn single_form(surface: &SurfaceStage, term: &Term, what: &str, diagnostics: &mut Vec<Diagnostic>) -> Option<String> {
+    let tokens = surface.tokens(&term.text);
+    match tokens.as_slice() {
+        [one] => Some(one.form.clone()),
+        [] => {
+            diagnostics.push(
+                Diagnostic::new(
+                    &term.origin.file,
+                    Some(term.origin.position()),
+                    format!("{what} {:?} holds no word the tokenizer keeps", term.text),
+                )
+                .help("write a word made of letters or digits"),
+            );
+            None
+        }
+        many => {
+            let forms: Vec<&str> = many.iter().map(|t| t.form.as_str()).collect();
+            diagnostics.push(
+                Diagnostic::new(
+                    &term.origin.file,
+                    Some(term.origin.position()),
+                    format!(
+                        "{what} is one token, but {:?} splits into {} ({})",
+                        term.text,
+                        many.len(),
+                        forms.join(", ")
+                    ),
+                )
+                .help("list each word on its own, or write a multi-word phrase as a synonym"),
+            );
+            None
+        }
+    }
+}
+
+fn self_mapped(lemma: &Term, form: &str) -> Diagnostic {
+    Diagnostic::new(
+        &lemma.origin.file,
+        Some(lemma.origin.position()),
+        format!("the lemma override maps {form:?} to itself once both are normalized"),
+    )
+    .help("remove it; lowercasing or accent folding already makes the two the same")
+}

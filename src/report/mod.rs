@@ -1,0 +1,7 @@
+//! Renderers: each turns one result value into one output format, as a string. None of
+//! them prints.
+
+pub mod style;
+pub mod trace_text;
+
+pub use style::{ColorChoice, Style};

@@ -1,0 +1,255 @@
+//! A spanned YAML tree: the one place that talks to the YAML parser.
+//!
+//! Rule files are read into a small generic tree whose every node knows its line and column,
+//! and the schema in [`super::schema`] walks that tree. Doing the schema by hand (instead of
+//! deriving it) is what lets every diagnostic name the exact key or value, suggest a key for
+//! a misspelt one, and say what was expected.
+//!
+//! Untrusted input is bounded three ways: the file size is checked before reading, the
+//! parser's budget caps events, aliases and depth, and the tree builder counts the nodes it
+//! materializes (an alias replays its anchor, so a small file can ask for a huge tree).
+
+use std::cell::Cell;
+use std::fmt;
+
+use serde::de::{self, Deserialize, Deserializer, MapAccess, SeqAccess, Visitor};
+use serde_saphyr::Spanned;
+
+/// Files larger than this are refused before they are read.
+pub const MAX_FILE_BYTES: u64 = 16 * 1024 * 1024;
+
+/// At most this many nodes are built for one file, aliases included.
+pub const MAX_TREE_NODES: usize = 400_000;
+
+/// A line and column, both counted from 1.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub struct Position {
+    pub line: u32,
+    pub column: u32,
+}
+
+/// One YAML node with the position where it is written.
+#[derive(Clone, Debug)]
+pub struct Node {
+    pub at: Position,
+    pub value: Value,
+}
+
+/// The shapes a node can have. Scalars keep their YAML type so the schema can tell a number
+/// from a string.
+#[derive(Clone, Debug)]
+pub enum Value {
+    Null,
+    Bool(bool),
+    Int(i64),
+    Float(f64),
+    Str(String),
+    Seq(Vec<Node>),
+    Map(Vec<(Node, Node)>),
+}
+
+impl Value {
+    /// What the value is, in the words of a diagnostic ("a list", "a number").
+    pub fn kind(&self) -> &'static str {
+        match self {
+            Value::Null => "an empty value",
+            Value::Bool(_) => "true or false",
+            Value::Int(_) | Value::Float(_) => "a number",
+            Value::Str(_) => "a string",
+            Value::Seq(_) => "a list",
+            Value::Map(_) => "a mapping",
+        }
+    }
+}
+
+/// Why a file could not be parsed as YAML at all.
+#[derive(Debug)]
+pub struct SyntaxError {
+    pub at: Option<Position>,
+    pub message: String,
+}
+
+thread_local! {
+    static NODES_LEFT: Cell<usize> = const { Cell::new(usize::MAX) };
+}
+
+/// Parses one YAML document into a spanned tree, within the budgets above.
+pub fn parse(text: &str) -> Result<Node, SyntaxError> {
+    // YAML 1.2 core booleans only: a stopword list holding `on` or `no` means the words.
+    let options = serde_saphyr::options! {
+        strict_booleans: true,
+        budget: serde_saphyr::budget! {
+            max_nodes: MAX_TREE_NODES,
+            max_aliases: 10_000,
+            max_depth: 32,
+            max_documents: 1,
+            max_recorded_anchor_events: MAX_TREE_NODES,
+        },
+    };
+    NODES_LEFT.with(|left| left.set(MAX_TREE_NODES));
+    let parsed: Result<Option<Spanned<Value>>, _> =
+        serde_saphyr::from_str_with_options(text, options);
+    NODES_LEFT.with(|left| left.set(usize::MAX));
+    match parsed {
+        Ok(Some(spanned)) => Ok(node_from(spanned)),
+        Ok(None) => Ok(Node {
+            at: Position { line: 1, column: 1 },
+            value: Value::Null,
+        }),
+        Err(err) => Err(syntax_error(&err)),
+    }
+}
+
+fn syntax_error(err: &serde_saphyr::Error) -> SyntaxError {
+    let at = err.location().and_then(|loc| position_of(&loc));
+    let rendered = err.without_snippet().to_string();
+    // The parser's message may carry its own "line N column M" prefix; keep the first line,
+    // which states the problem, since our diagnostic prints the position itself.
+    let message = rendered
+        .lines()
+        .find(|line| !line.trim().is_empty())
+        .unwrap_or("the file is not valid YAML")
+        .trim()
+        .to_string();
+    SyntaxError { at, message }
+}
+
+fn position_of(loc: &serde_saphyr::Location) -> Option<Position> {
+    let line = u32::try_from(loc.line()).ok()?;
+    let column = u32::try_from(loc.column()).ok()?;
+    (line > 0).then_some(Position {
+        line,
+        column: column.max(1),
+    })
+}
+
+fn node_from(spanned: Spanned<Value>) -> Node {
+    let at = position_of(&spanned.referenced).unwrap_or_default();
+    Node {
+        at,
+        value: spanned.value,
+    }
+}
+
+fn take_node_budget<E: de::Error>() -> Result<(), E> {
+    NODES_LEFT.with(|left| {
+        let n = left.get();
+        if n == 0 {
+            Err(E::custom(format!(
+                "the document expands to more than {MAX_TREE_NODES} nodes (through aliases or sheer size); \
+                 rule files this large are refused"
+            )))
+        } else {
+            left.set(n - 1);
+            Ok(())
+        }
+    })
+}
+
+impl<'de> Deserialize<'de> for Value {
+    fn deserialize<D: Deserializer<'de>>(deserializer: D) -> Result<Self, D::Error> {
+        deserializer.deserialize_any(ValueVisitor)
+    }
+}
+
+struct ValueVisitor;
+
+impl<'de> Visitor<'de> for ValueVisitor {
+    type Value = Value;
+
+    fn expecting(&self, f: &mut fmt::Formatter) -> fmt::Result {
+        f.write_str("any YAML value")
+    }
+
+    fn visit_bool<E: de::Error>(self, v: bool) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(Value::Bool(v))
+    }
+
+    fn visit_i64<E: de::Error>(self, v: i64) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(Value::Int(v))
+    }
+
+    fn visit_u64<E: de::Error>(self, v: u64) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(i64::try_from(v).map_or(Value::Float(v as f64), Value::Int))
+    }
+
+    fn visit_f64<E: de::Error>(self, v: f64) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(Value::Float(v))
+    }
+
+    fn visit_str<E: de::Error>(self, v: &str) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(Value::Str(v.to_string()))
+    }
+
+    fn visit_string<E: de::Error>(self, v: String) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(Value::Str(v))
+    }
+
+    fn visit_unit<E: de::Error>(self) -> Result<Value, E> {
+        take_node_budget()?;
+        Ok(Value::Null)
+    }
+
+    fn visit_none<E: de::Error>(self) -> Result<Value, E> {
+        self.visit_unit()
+    }
+
+    fn visit_some<D: Deserializer<'de>>(self, d: D) -> Result<Value, D::Error> {
+        Value::deserialize(d)
+    }
+
+    fn visit_seq<A: SeqAccess<'de>>(self, mut seq: A) -> Result<Value, A::Error> {
+        take_node_budget()?;
+        let mut items = Vec::new();
+        while let Some(item) = seq.next_element::<Spanned<Value>>()? {
+            items.push(node_from(item));
+        }
+        Ok(Value::Seq(items))
+    }
+
+    fn visit_map<A: MapAccess<'de>>(self, mut map: A) -> Result<Value, A::Error> {
+        take_node_budget()?;
+        let mut entries = Vec::new();
+        while let Some((key, value)) = map.next_entry::<Spanned<Value>, Spanned<Value>>()? {
+            entries.push((node_from(key), node_from(value)));
+        }
+        Ok(Value::Map(entries))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn keys_and_values_keep_their_positions() {
+        let node = parse("format: 1\nsynonyms:\n  - equivalent: [a, b]\n").unwrap();
+        let Value::Map(entries) = node.value else {
+            panic!("expected a map")
+        };
+        assert_eq!(entries[0].0.at, Position { line: 1, column: 1 });
+        assert_eq!(entries[0].1.at, Position { line: 1, column: 9 });
+        let Value::Seq(items) = &entries[1].1.value else {
+            panic!("expected a list")
+        };
+        assert_eq!(items[0].at.line, 3);
+    }
+
+    #[test]
+    fn an_empty_file_is_null() {
+        assert!(matches!(parse("").unwrap().value, Value::Null));
+        assert!(matches!(parse("# only a comment\n").unwrap().value, Value::Null));
+    }
+
+    #[test]
+    fn syntax_errors_carry_a_position() {
+        let err = parse("a: [1, 2\nb: 3\n").unwrap_err();
+        assert!(err.at.is_some(), "{err:?}");
+    }
+}
