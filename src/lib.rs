@@ -49,11 +49,13 @@
 //!
 //! - [`rules`]: the rule-file format, loading with spans, diagnostics, git revisions.
 //! - [`analysis`]: the analyzer, one file per stage, the trace, the tantivy adapter.
+//! - [`corpus`]: documents and query logs.
 //! - [`import`]: published irregular-form lists (WordNet) as lemma overrides.
 //! - [`metrics`]: precision, recall, reciprocal rank, AP, nDCG, RBO, significance.
 
 pub mod analysis;
 pub mod atomic;
+pub mod corpus;
 pub mod import;
 pub mod metrics;
 pub mod report;

@@ -1,0 +1,10 @@
+//! Reading what a preview runs on: documents, query logs (judgments are in
+//! [`crate::metrics`]). Every reader reports problems with file and line.
+
+mod documents;
+mod error;
+mod queries;
+
+pub use documents::{Corpus, DocOptions, Document, FieldSpec, Sample, read_documents};
+pub use error::CorpusError;
+pub use queries::{QueryEntry, QueryLog, read_queries};
