@@ -113,7 +113,7 @@ pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
         compiled.push(c);
     }
     if !diagnostics.is_empty() {
-        return Err(RulesError::Invalid(diagnostics));
+        return Err(RulesError::Invalid(ruleset.attach_sources(diagnostics)));
     }
     analyzer.synonyms = SynonymTable::new(drop_empty(compiled));
     analyzer.ruleset = Arc::new(ruleset);

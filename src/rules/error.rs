@@ -20,7 +20,12 @@ pub struct Diagnostic {
     pub source_line: Option<String>,
     /// A second place the problem involves (the first definition of a duplicate id).
     pub related: Option<(String, Position)>,
+    /// Where the caret goes in `source_line` when that is a window of a long line.
+    pub caret_column: Option<usize>,
 }
+
+/// Source lines longer than this are quoted as a window around the column.
+const MAX_QUOTED: usize = 100;
 
 impl Diagnostic {
     pub fn new(file: &str, at: Option<Position>, message: impl Into<String>) -> Self {
@@ -31,6 +36,7 @@ impl Diagnostic {
             help: None,
             source_line: None,
             related: None,
+            caret_column: None,
         }
     }
 
@@ -44,14 +50,24 @@ impl Diagnostic {
         self
     }
 
-    /// Attaches the source line the position points into.
+    /// Attaches the source line the position points into; a very long line is cut to a
+    /// window around the column (and the column moved to match).
     pub fn with_source(mut self, text: &str) -> Self {
-        if let Some(at) = self.at {
-            self.source_line = text
-                .lines()
-                .nth(at.line.saturating_sub(1) as usize)
-                .map(str::to_string);
+        let Some(at) = self.at else { return self };
+        let Some(line) = text.lines().nth(at.line.saturating_sub(1) as usize) else {
+            return self;
+        };
+        let chars: Vec<char> = line.chars().collect();
+        if chars.len() <= MAX_QUOTED {
+            self.source_line = Some(line.to_string());
+            return self;
         }
+        let col = (at.column.saturating_sub(1) as usize).min(chars.len());
+        let start = col.saturating_sub(MAX_QUOTED / 2);
+        let end = (start + MAX_QUOTED).min(chars.len());
+        let window: String = chars[start..end].iter().collect();
+        self.source_line = Some(format!("…{window}…"));
+        self.caret_column = Some(col - start + 2);
         self
     }
 
@@ -70,9 +86,10 @@ impl fmt::Display for Diagnostic {
         if let (Some(at), Some(line)) = (self.at, &self.source_line) {
             let number = at.line.to_string();
             let pad = " ".repeat(number.len());
+            let column = self.caret_column.unwrap_or(at.column as usize);
             let caret_pad: String = line
                 .chars()
-                .take(at.column.saturating_sub(1) as usize)
+                .take(column.saturating_sub(1))
                 .map(|c| if c == '\t' { '\t' } else { ' ' })
                 .collect();
             write!(f, "\n{pad} |\n{number} | {line}\n{pad} | {caret_pad}^")?;

@@ -126,7 +126,7 @@ pub fn load_sources(source: &str, files: Vec<SourceFile>) -> Result<Ruleset, Rul
             Err(err) => {
                 diagnostics.push(
                     Diagnostic::new(&file.name, err.at, err.message)
-                        .help("fix the YAML syntax at this point")
+                        .help(err.help)
                         .with_source(&file.text),
                 );
                 continue;
@@ -142,6 +142,7 @@ pub fn load_sources(source: &str, files: Vec<SourceFile>) -> Result<Ruleset, Rul
                 revision_origin,
                 content_hash: blake3::hash(file.text.as_bytes()).to_hex().to_string(),
                 rules_hash: rules_digest(&root),
+                text: Arc::from(file.text.as_str()),
             });
         }
         single.merge(&mut ruleset, rules, &mut diagnostics, &files);

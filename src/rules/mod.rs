@@ -309,6 +309,9 @@ pub struct FileInfo {
     /// The rule content with comments and the revision line set aside, hashed; what the
     /// revision check compares.
     pub rules_hash: String,
+    /// The file's text, so later diagnostics can quote the source line.
+    #[serde(skip)]
+    pub text: Arc<str>,
 }
 
 /// A loaded ruleset: every file's rules, merged, each rule with its origin.
@@ -326,6 +329,17 @@ pub struct Ruleset {
 }
 
 impl Ruleset {
+    /// Quotes the source line under each diagnostic that points into this ruleset.
+    pub fn attach_sources(&self, diagnostics: Vec<Diagnostic>) -> Vec<Diagnostic> {
+        diagnostics
+            .into_iter()
+            .map(|d| match self.files.iter().find(|f| *f.name == *d.file) {
+                Some(file) if d.source_line.is_none() => d.with_source(&file.text),
+                _ => d,
+            })
+            .collect()
+    }
+
     /// Every rule's meta, in a stable order: synonyms, exemptions, lemmas.
     pub fn all_meta(&self) -> impl Iterator<Item = &RuleMeta> {
         self.synonyms

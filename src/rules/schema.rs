@@ -560,7 +560,7 @@ impl<'a> Walker<'a> {
     }
 
     fn exemption(&mut self, node: &Node) -> Option<Exemption> {
-        if let Value::Str(_) | Value::Int(_) = node.value {
+        if let Value::Str(_) | Value::Int(_) | Value::Bool(_) = node.value {
             let term = self.term(node, "an exempt term")?;
             return Some(Exemption {
                 meta: self.bare_meta(node),

@@ -67,6 +67,7 @@ impl Value {
 pub struct SyntaxError {
     pub at: Option<Position>,
     pub message: String,
+    pub help: &'static str,
 }
 
 thread_local! {
@@ -78,6 +79,9 @@ pub fn parse(text: &str) -> Result<Node, SyntaxError> {
     // YAML 1.2 core booleans only: a stopword list holding `on` or `no` means the words.
     let options = serde_saphyr::options! {
         strict_booleans: true,
+        alias_limits: serde_saphyr::alias_limits! {
+            max_total_replayed_events: MAX_TREE_NODES,
+        },
         budget: serde_saphyr::budget! {
             max_nodes: MAX_TREE_NODES,
             max_aliases: 10_000,
@@ -109,9 +113,28 @@ fn syntax_error(err: &serde_saphyr::Error) -> SyntaxError {
         .lines()
         .find(|line| !line.trim().is_empty())
         .unwrap_or("the file is not valid YAML")
-        .trim()
-        .to_string();
-    SyntaxError { at, message }
+        .trim();
+    // Our diagnostic prints the position itself; drop the parser's copy of it.
+    let message = match message.rfind(" at line ") {
+        Some(i) if message[i..].contains("column") => &message[..i],
+        _ => message,
+    }
+    .to_string();
+    if message.contains("budget breached") || message.contains("alias replay") {
+        return SyntaxError {
+            at,
+            message: format!(
+                "the document expands beyond the limits for a rule file \
+                 ({MAX_TREE_NODES} nodes, 10000 aliases, depth 32)"
+            ),
+            help: "rule files need no YAML anchors or aliases (`&name`, `*name`); remove them or split the file",
+        };
+    }
+    SyntaxError {
+        at,
+        message,
+        help: "fix the YAML syntax at this point",
+    }
 }
 
 fn position_of(loc: &serde_saphyr::Location) -> Option<Position> {
