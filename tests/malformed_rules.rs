@@ -56,12 +56,19 @@ fn every_malformed_file_gets_its_precise_diagnostic() {
         .filter(|p| p.extension().is_some_and(|e| e == "yaml"))
         .collect();
     files.sort();
-    assert!(files.len() >= 30, "the malformed corpus has {} files", files.len());
+    assert!(
+        files.len() >= 30,
+        "the malformed corpus has {} files",
+        files.len()
+    );
     let mut failures = Vec::new();
     for path in &files {
         let text = fs::read_to_string(path).unwrap();
         let want = expectation(path, &text);
-        let name = format!("tests/malformed/{}", path.file_name().unwrap().to_string_lossy());
+        let name = format!(
+            "tests/malformed/{}",
+            path.file_name().unwrap().to_string_lossy()
+        );
         let got = diagnostics_for(&name, &text);
         let hit = got.iter().find(|d| {
             d.at.is_some_and(|at| at.line == want.line && at.column == want.column)
@@ -76,7 +83,9 @@ fn every_malformed_file_gets_its_precise_diagnostic() {
                 let shown = d.to_string();
                 let location = format!("{name}:{}:{}", want.line, want.column);
                 if !shown.starts_with(&location) {
-                    failures.push(format!("{name}: display does not start with {location}: {shown}"));
+                    failures.push(format!(
+                        "{name}: display does not start with {location}: {shown}"
+                    ));
                 }
             }
             None => failures.push(format!(
@@ -85,7 +94,10 @@ fn every_malformed_file_gets_its_precise_diagnostic() {
                 want.column,
                 want.message,
                 want.help,
-                got.iter().map(|d| format!("    {d}")).collect::<Vec<_>>().join("\n")
+                got.iter()
+                    .map(|d| format!("    {d}"))
+                    .collect::<Vec<_>>()
+                    .join("\n")
             )),
         }
     }

@@ -52,21 +52,47 @@ fn a_100_mb_file_is_refused_before_it_is_read() {
     let err = load_dir(dir.path()).unwrap_err().to_string();
     assert!(started.elapsed() < Duration::from_secs(1));
     assert!(err.contains("huge.yaml"), "{err}");
-    assert!(err.contains("100.0 MiB; rule files are limited to 16 MiB"), "{err}");
+    assert!(
+        err.contains("100.0 MiB; rule files are limited to 16 MiB"),
+        "{err}"
+    );
 }
 
 #[test]
 fn a_missing_directory_is_named() {
-    let err = load_dir(std::path::Path::new("no/such/rules")).unwrap_err().to_string();
+    let err = load_dir(std::path::Path::new("no/such/rules"))
+        .unwrap_err()
+        .to_string();
     assert!(err.contains("no/such/rules"), "{err}");
 }
 
 const FRAGMENTS: &[&str] = &[
-    "format: 1\n", "revision: 1\n", "synonyms:\n", "  - equivalent: [a, b]\n", "exempt:\n",
-    "  - pattern: \"[\"\n", "lemmas:\n", "  - {form: x, lemma: y}\n", "pipeline:\n",
-    "  stopwords: [the]\n", "  stemmer: dutch\n", "&a [x]\n", "*a\n", "  - one_way: {from: a}\n",
-    "- ]\n", "{", "\t", ": :\n", "\"\\u00e9\"\n", "lint:\n  checks: {x: off}\n", "gate: 3\n",
-    "  - id: a\n", "  - id: a\n    term: q\n", "\u{feff}", "---\n", "...\n",
+    "format: 1\n",
+    "revision: 1\n",
+    "synonyms:\n",
+    "  - equivalent: [a, b]\n",
+    "exempt:\n",
+    "  - pattern: \"[\"\n",
+    "lemmas:\n",
+    "  - {form: x, lemma: y}\n",
+    "pipeline:\n",
+    "  stopwords: [the]\n",
+    "  stemmer: dutch\n",
+    "&a [x]\n",
+    "*a\n",
+    "  - one_way: {from: a}\n",
+    "- ]\n",
+    "{",
+    "\t",
+    ": :\n",
+    "\"\\u00e9\"\n",
+    "lint:\n  checks: {x: off}\n",
+    "gate: 3\n",
+    "  - id: a\n",
+    "  - id: a\n    term: q\n",
+    "\u{feff}",
+    "---\n",
+    "...\n",
 ];
 
 proptest! {
