@@ -59,6 +59,7 @@ pub mod corpus;
 pub mod import;
 pub mod metrics;
 pub mod report;
+pub mod review;
 pub mod rules;
 pub mod severity;
 

@@ -1,0 +1,178 @@
+//! The gate: agreed limits a change must stay within, each breach with a one-line reason.
+//!
+//! Limits come from the `gate:` section of the **base** ruleset — a change under review
+//! cannot loosen the limits it is judged by — and can be set or overridden on the command
+//! line.
+
+use serde::Serialize;
+
+use crate::rules::GateSettings;
+use crate::severity::Severity;
+
+/// The limits in force.
+#[derive(Clone, Debug, Default, PartialEq, Serialize)]
+pub struct GateLimits {
+    /// No query emptied by the change may have more searches than this.
+    pub max_emptied_searches: Option<u64>,
+    /// The share of all searches whose results lose documents may not exceed this.
+    pub max_lost_traffic_share: Option<f64>,
+    /// Mean nDCG may not drop by more than this.
+    pub max_ndcg_drop: Option<f64>,
+    /// No lint finding at or above this severity.
+    pub fail_on_lint: Option<Severity>,
+}
+
+impl GateLimits {
+    pub fn from_settings(settings: &GateSettings) -> Self {
+        GateLimits {
+            max_emptied_searches: settings.max_emptied_searches,
+            max_lost_traffic_share: settings.max_lost_traffic_share,
+            max_ndcg_drop: settings.max_ndcg_drop,
+            fail_on_lint: settings.fail_on_lint,
+        }
+    }
+
+    /// Limits given on the command line take precedence over the ruleset's.
+    pub fn overridden_by(self, other: &GateLimits) -> Self {
+        GateLimits {
+            max_emptied_searches: other.max_emptied_searches.or(self.max_emptied_searches),
+            max_lost_traffic_share: other.max_lost_traffic_share.or(self.max_lost_traffic_share),
+            max_ndcg_drop: other.max_ndcg_drop.or(self.max_ndcg_drop),
+            fail_on_lint: other.fail_on_lint.or(self.fail_on_lint),
+        }
+    }
+
+    pub fn is_empty(&self) -> bool {
+        *self == GateLimits::default()
+    }
+}
+
+/// What the gate looks at, taken from the review's result.
+#[derive(Clone, Debug, Default)]
+pub struct GateInput {
+    /// Emptied queries and their searches.
+    pub emptied: Vec<(String, u64)>,
+    /// Searches whose results lost documents, and all searches.
+    pub lost_searches: u64,
+    pub total_searches: u64,
+    /// Mean nDCG before and after, when judgments were given.
+    pub ndcg: Option<(String, f64, f64)>,
+    /// Lint findings per severity.
+    pub lint: Vec<(Severity, usize)>,
+}
+
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct Breach {
+    pub limit: &'static str,
+    pub reason: String,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct GateOutcome {
+    pub limits: GateLimits,
+    pub breaches: Vec<Breach>,
+}
+
+impl GateOutcome {
+    pub fn passed(&self) -> bool {
+        self.breaches.is_empty()
+    }
+}
+
+/// Checks every limit; all breaches are reported, not only the first.
+pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
+    let mut breaches = Vec::new();
+    if let Some(max) = limits.max_emptied_searches {
+        let mut over: Vec<&(String, u64)> = input.emptied.iter().filter(|(_, n)| *n > max).collect();
+        over.sort_by(|a, b| b.1.cmp(&a.1).then_with(|| a.0.cmp(&b.0)));
+        for (query, searches) in over {
+            breaches.push(Breach {
+                limit: "max_emptied_searches",
+                reason: format!("{query:?} ({searches} searches) finds nothing after the change; the limit is {max}"),
+            });
+        }
+    }
+    if let Some(max) = limits.max_lost_traffic_share
+        && input.total_searches > 0
+    {
+        let share = input.lost_searches as f64 / input.total_searches as f64;
+        if share > max {
+            breaches.push(Breach {
+                limit: "max_lost_traffic_share",
+                reason: format!(
+                    "{:.1}% of searches ({} of {}) lose documents; the limit is {:.1}%",
+                    share * 100.0,
+                    input.lost_searches,
+                    input.total_searches,
+                    max * 100.0
+                ),
+            });
+        }
+    }
+    if let (Some(max), Some((metric, before, after))) = (limits.max_ndcg_drop, &input.ndcg) {
+        let drop = before - after;
+        if drop > max {
+            breaches.push(Breach {
+                limit: "max_ndcg_drop",
+                reason: format!("mean {metric} drops by {drop:.4} ({before:.4} → {after:.4}); the limit is {max:.4}"),
+            });
+        }
+    }
+    if let Some(floor) = limits.fail_on_lint {
+        let n: usize = input.lint.iter().filter(|(s, _)| *s >= floor).map(|(_, n)| n).sum();
+        if n > 0 {
+            breaches.push(Breach {
+                limit: "fail_on_lint",
+                reason: format!("{n} lint finding{} at {floor} or above", if n == 1 { "" } else { "s" }),
+            });
+        }
+    }
+    GateOutcome {
+        limits: limits.clone(),
+        breaches,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn input() -> GateInput {
+        GateInput {
+            emptied: vec![("transitions".into(), 14), ("rare".into(), 1)],
+            lost_searches: 3000,
+            total_searches: 90_000,
+            ndcg: Some(("nDCG@10".into(), 0.66, 0.64)),
+            lint: vec![(Severity::Warning, 3)],
+        }
+    }
+
+    #[test]
+    fn each_breached_limit_gives_one_reason() {
+        let limits = GateLimits {
+            max_emptied_searches: Some(5),
+            max_lost_traffic_share: Some(0.02),
+            max_ndcg_drop: Some(0.01),
+            fail_on_lint: Some(Severity::Error),
+        };
+        let out = check(&limits, &input());
+        let names: Vec<&str> = out.breaches.iter().map(|b| b.limit).collect();
+        assert_eq!(names, ["max_emptied_searches", "max_lost_traffic_share", "max_ndcg_drop"]);
+        assert!(out.breaches[0].reason.contains("\"transitions\" (14 searches)"));
+        assert!(!out.passed());
+    }
+
+    #[test]
+    fn within_limits_passes_and_cli_overrides_the_ruleset() {
+        let ruleset = GateLimits {
+            max_emptied_searches: Some(0),
+            ..GateLimits::default()
+        };
+        let cli = GateLimits {
+            max_emptied_searches: Some(100),
+            ..GateLimits::default()
+        };
+        let limits = ruleset.overridden_by(&cli);
+        assert!(check(&limits, &input()).passed());
+    }
+}
