@@ -11,7 +11,9 @@ use std::path::Path;
 
 use serde::Serialize;
 
-use crate::rules::{ExemptKind, FileInfo, LemmaOverride, Origin, Ruleset, SynonymKind, SynonymRule, Term};
+use crate::rules::{
+    ExemptKind, FileInfo, LemmaOverride, Origin, Ruleset, SynonymKind, SynonymRule, Term,
+};
 
 #[derive(Clone, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize)]
 #[serde(rename_all = "lowercase")]
@@ -148,8 +150,16 @@ fn diff_pipeline(base: &Ruleset, head: &Ruleset) -> Vec<PipelineChange> {
     };
     let stemmer = |p: &crate::rules::Pipeline| p.stemmer.map_or("none", |l| l.name()).to_string();
     setting("stemmer", stemmer(b), stemmer(h));
-    setting("lowercase", b.lowercase.to_string(), h.lowercase.to_string());
-    setting("fold_accents", b.fold_accents.to_string(), h.fold_accents.to_string());
+    setting(
+        "lowercase",
+        b.lowercase.to_string(),
+        h.lowercase.to_string(),
+    );
+    setting(
+        "fold_accents",
+        b.fold_accents.to_string(),
+        h.fold_accents.to_string(),
+    );
     let words = |p: &crate::rules::Pipeline| {
         let set: BTreeSet<&str> = p.stopwords.iter().map(|t| t.text.as_str()).collect();
         set.into_iter().collect::<Vec<_>>().join(", ")
@@ -170,8 +180,12 @@ fn terms_text(terms: &[Term]) -> Vec<String> {
 
 fn describe_synonym(rule: &SynonymRule) -> String {
     match &rule.kind {
-        SynonymKind::Equivalent { members } => format!("equivalent [{}]", terms_text(members).join(", ")),
-        SynonymKind::OneWay { from, to } => format!("one_way {} → [{}]", from.text, terms_text(to).join(", ")),
+        SynonymKind::Equivalent { members } => {
+            format!("equivalent [{}]", terms_text(members).join(", "))
+        }
+        SynonymKind::OneWay { from, to } => {
+            format!("one_way {} → [{}]", from.text, terms_text(to).join(", "))
+        }
     }
 }
 
@@ -208,7 +222,11 @@ fn synonym_index(rs: &Ruleset) -> BTreeMap<String, &SynonymRule> {
         .collect()
 }
 
-fn synonym_change(change: Change, base: Option<&SynonymRule>, head: Option<&SynonymRule>) -> RuleChange {
+fn synonym_change(
+    change: Change,
+    base: Option<&SynonymRule>,
+    head: Option<&SynonymRule>,
+) -> RuleChange {
     let members = |r: Option<&SynonymRule>| -> BTreeSet<String> {
         r.map(|r| r.terms().iter().map(|t| t.text.clone()).collect())
             .unwrap_or_default()
@@ -218,7 +236,11 @@ fn synonym_change(change: Change, base: Option<&SynonymRule>, head: Option<&Syno
     RuleChange {
         change,
         section: "synonym",
-        label: either.meta.id.clone().unwrap_or_else(|| describe_synonym(either)),
+        label: either
+            .meta
+            .id
+            .clone()
+            .unwrap_or_else(|| describe_synonym(either)),
         base: base.map(|r| r.meta.origin.clone()),
         head: head.map(|r| r.meta.origin.clone()),
         before: base.map(describe_synonym),
@@ -241,12 +263,17 @@ fn diff_exemptions(base: &Ruleset, head: &Ruleset, out: &mut Vec<RuleChange>) {
             .iter()
             .map(|r| {
                 let text = describe_exempt(&r.kind);
-                (identity(&r.meta.id, &text), (text, r.meta.origin.clone(), r.meta.id.clone()))
+                (
+                    identity(&r.meta.id, &text),
+                    (text, r.meta.origin.clone(), r.meta.id.clone()),
+                )
             })
             .collect()
     };
     let (b, h) = (index(base), index(head));
-    let entry = |change, old: Option<&(String, Origin, Option<String>)>, new: Option<&(String, Origin, Option<String>)>| {
+    let entry = |change,
+                 old: Option<&(String, Origin, Option<String>)>,
+                 new: Option<&(String, Origin, Option<String>)>| {
         let either = new.or(old).expect("one side exists");
         RuleChange {
             change,
@@ -284,7 +311,10 @@ fn diff_lemmas(base: &[LemmaOverride], head: &[LemmaOverride], out: &mut Vec<Rul
         map
     };
     let (b, h) = (index(base), index(head));
-    let entry = |change, form: &str, old: Option<&(String, Origin)>, new: Option<&(String, Origin)>| RuleChange {
+    let entry = |change,
+                 form: &str,
+                 old: Option<&(String, Origin)>,
+                 new: Option<&(String, Origin)>| RuleChange {
         change,
         section: "lemma",
         label: form.to_string(),
@@ -303,7 +333,9 @@ fn diff_lemmas(base: &[LemmaOverride], head: &[LemmaOverride], out: &mut Vec<Rul
     for (form, new) in &h {
         match b.get(form) {
             None => out.push(entry(Change::Added, form, None, Some(new))),
-            Some(old) if old.0 != new.0 => out.push(entry(Change::Changed, form, Some(old), Some(new))),
+            Some(old) if old.0 != new.0 => {
+                out.push(entry(Change::Changed, form, Some(old), Some(new)))
+            }
             Some(_) => {}
         }
     }
@@ -315,7 +347,14 @@ mod tests {
     use crate::rules::{SourceFile, load_sources};
 
     fn ruleset(name: &str, text: &str) -> Ruleset {
-        load_sources(name, vec![SourceFile { name: format!("{name}/r.yaml"), text: text.into() }]).unwrap()
+        load_sources(
+            name,
+            vec![SourceFile {
+                name: format!("{name}/r.yaml"),
+                text: text.into(),
+            }],
+        )
+        .unwrap()
     }
 
     #[test]
@@ -329,17 +368,33 @@ mod tests {
             "format: 1\nrevision: 2\nsynonyms:\n  - id: pram\n    equivalent: [pram, pushchair, stroller]\nexempt: [universal]\nlemmas:\n  - {form: rode, lemma: rid}\n  - {form: left, lemma: leave}\n",
         );
         let d = diff(&base, &head);
-        let summary: Vec<(String, &str, String)> =
-            d.rules.iter().map(|r| (format!("{:?}", r.change), r.section, r.label.clone())).collect();
-        assert!(summary.contains(&("Changed".into(), "synonym", "pram".into())), "{summary:?}");
-        assert!(summary.contains(&("Removed".into(), "synonym", "equivalent [lift, elevator]".into())));
+        let summary: Vec<(String, &str, String)> = d
+            .rules
+            .iter()
+            .map(|r| (format!("{:?}", r.change), r.section, r.label.clone()))
+            .collect();
+        assert!(
+            summary.contains(&("Changed".into(), "synonym", "pram".into())),
+            "{summary:?}"
+        );
+        assert!(summary.contains(&(
+            "Removed".into(),
+            "synonym",
+            "equivalent [lift, elevator]".into()
+        )));
         assert!(summary.contains(&("Added".into(), "exempt", "term universal".into())));
         assert!(summary.contains(&("Changed".into(), "lemma", "rode".into())));
         assert!(summary.contains(&("Added".into(), "lemma", "left".into())));
         let pram = d.rules.iter().find(|r| r.label == "pram").unwrap();
         assert_eq!(pram.members_added, ["stroller"]);
         assert_eq!(d.files.len(), 1);
-        assert!(d.files[0].unified.as_ref().unwrap().contains("+revision: 2"));
+        assert!(
+            d.files[0]
+                .unified
+                .as_ref()
+                .unwrap()
+                .contains("+revision: 2")
+        );
     }
 
     #[test]

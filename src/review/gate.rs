@@ -83,7 +83,8 @@ impl GateOutcome {
 pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
     let mut breaches = Vec::new();
     if let Some(max) = limits.max_emptied_searches {
-        let mut over: Vec<&(String, u64)> = input.emptied.iter().filter(|(_, n)| *n > max).collect();
+        let mut over: Vec<&(String, u64)> =
+            input.emptied.iter().filter(|(_, n)| *n > max).collect();
         over.sort_by(|a, b| b.1.cmp(&a.1).then_with(|| a.0.cmp(&b.0)));
         for (query, searches) in over {
             breaches.push(Breach {
@@ -119,11 +120,19 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
         }
     }
     if let Some(floor) = limits.fail_on_lint {
-        let n: usize = input.lint.iter().filter(|(s, _)| *s >= floor).map(|(_, n)| n).sum();
+        let n: usize = input
+            .lint
+            .iter()
+            .filter(|(s, _)| *s >= floor)
+            .map(|(_, n)| n)
+            .sum();
         if n > 0 {
             breaches.push(Breach {
                 limit: "fail_on_lint",
-                reason: format!("{n} lint finding{} at {floor} or above", if n == 1 { "" } else { "s" }),
+                reason: format!(
+                    "{n} lint finding{} at {floor} or above",
+                    if n == 1 { "" } else { "s" }
+                ),
             });
         }
     }
@@ -157,8 +166,19 @@ mod tests {
         };
         let out = check(&limits, &input());
         let names: Vec<&str> = out.breaches.iter().map(|b| b.limit).collect();
-        assert_eq!(names, ["max_emptied_searches", "max_lost_traffic_share", "max_ndcg_drop"]);
-        assert!(out.breaches[0].reason.contains("\"transitions\" (14 searches)"));
+        assert_eq!(
+            names,
+            [
+                "max_emptied_searches",
+                "max_lost_traffic_share",
+                "max_ndcg_drop"
+            ]
+        );
+        assert!(
+            out.breaches[0]
+                .reason
+                .contains("\"transitions\" (14 searches)")
+        );
         assert!(!out.passed());
     }
 
