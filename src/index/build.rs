@@ -23,10 +23,12 @@ pub(crate) struct IndexFields {
     pub lens: Vec<Field>,
 }
 
-pub(crate) fn schema(num_fields: usize) -> (Schema, IndexFields) {
+/// The schema; `tokenizer` names the text fields' tokenizer (surface indexes receive
+/// pre-tokenized text and keep tantivy's `default` name, which is always registered).
+pub(crate) fn schema(num_fields: usize, tokenizer: &str) -> (Schema, IndexFields) {
     let mut builder = Schema::builder();
     let indexing = TextFieldIndexing::default()
-        .set_tokenizer(KEY_TOKENIZER)
+        .set_tokenizer(tokenizer)
         .set_index_option(IndexRecordOption::WithFreqsAndPositions);
     let options = TextOptions::default().set_indexing_options(indexing);
     let texts = (0..num_fields)
@@ -54,7 +56,7 @@ pub fn build_surface_index(
     dir: Option<&Path>,
     progress: &dyn Progress,
 ) -> Result<Index, IndexError> {
-    let (schema, fields) = schema(corpus.fields.len());
+    let (schema, fields) = schema(corpus.fields.len(), "default");
     let index = create(dir, schema)?;
     let mut writer = index.writer::<TantivyDocument>(WRITER_MEMORY)?;
     progress.begin(corpus.len() as u64, "indexing surface forms");
@@ -99,7 +101,7 @@ pub fn build_key_index(
     analyzer: &Arc<Analyzer>,
     dir: Option<&Path>,
 ) -> Result<Index, IndexError> {
-    let (schema, fields) = schema(corpus.fields.len());
+    let (schema, fields) = schema(corpus.fields.len(), KEY_TOKENIZER);
     let index = create(dir, schema)?;
     index
         .tokenizers()

@@ -91,7 +91,7 @@ const CACHE_BUDGET: usize = 64 << 20;
 
 impl IndexPostings {
     pub fn open(index: &Index, num_fields: usize) -> Result<Self, IndexError> {
-        let (_, fields) = schema(num_fields);
+        let (_, fields) = schema(num_fields, "default");
         let reader = index.reader()?;
         let searcher = reader.searcher();
         let num_docs = searcher.num_docs() as u32;

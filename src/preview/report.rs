@@ -82,7 +82,9 @@ pub struct CorpusInfo {
     pub documents: usize,
     pub fields: Vec<FieldSpec>,
     pub fingerprint: String,
-    /// `built`, `reused` or `memory` (no cache).
+    /// `built`, `reused` or `memory` (no cache). Left out of JSON so that two runs of the
+    /// same preview give the same bytes.
+    #[serde(skip)]
     pub index: String,
 }
 
