@@ -308,7 +308,7 @@ proptest! {
             let docs = |v: &[Hit]| v.iter().map(|x| x.doc).collect::<std::collections::BTreeSet<_>>();
             let top = |v: &[Hit]| v.iter().take(10).map(|x| (x.doc, x.score)).collect::<Vec<_>>();
             let differs = docs(b) != docs(h) || top(b).iter().zip(top(h)).any(|(x, y)| x.0 != y.0 || (x.1 - y.1).abs() > 1e-9);
-            let reported = report.queries.iter().any(|c| &c.query == q.trim());
+            let reported = report.queries.iter().any(|c| c.query == q.trim());
             prop_assert_eq!(differs, reported, "query {:?}", q);
         }
     }

@@ -27,7 +27,7 @@ pub struct Cli {
 enum Command {
     Trace(trace::Args),
     Import(import::Args),
-    Preview(preview::Args),
+    Preview(Box<preview::Args>),
 }
 
 /// An error the CLI reports on stderr with exit code 2.
@@ -66,7 +66,7 @@ pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
     match cli.command {
         Command::Trace(args) => trace::run(args),
         Command::Import(args) => import::run(args),
-        Command::Preview(args) => preview::run(args),
+        Command::Preview(args) => preview::run(*args),
     }
 }
 
