@@ -5,3 +5,5 @@ pub mod style;
 pub mod trace_text;
 
 pub use style::{ColorChoice, Style};
+pub mod preview_json;
+pub mod preview_text;

@@ -1,0 +1,63 @@
+//! The sample index: a tantivy index of the corpus's **surface forms** (steps 1–3 of the
+//! normalization contract, positions kept), built once and cached on disk.
+//!
+//! One surface index serves every ruleset that shares its surface settings: a ruleset's
+//! view of it is a map from surface form to key ([`crate::preview`] builds it). The same
+//! schema also holds **key indexes** (built with [`KeyTokenizer::keys`]), which the slow
+//! reference path and the naive benchmark use.
+//!
+//! Schema: one text field per searched field (`f0`, `f1`, … in [`Corpus::fields`] order,
+//! with frequencies and positions), a fast field `ord` (the document's index in
+//! [`Corpus::documents`]) and a fast field `len{i}` per text field (the number of tokens
+//! the field holds in that index).
+//!
+//! [`KeyTokenizer::keys`]: crate::analysis::tantivy::KeyTokenizer::keys
+//! [`Corpus::fields`]: crate::corpus::Corpus::fields
+//! [`Corpus::documents`]: crate::corpus::Corpus::documents
+
+mod build;
+mod cache;
+mod reader;
+
+pub use build::{build_key_index, build_surface_index};
+pub use cache::{CacheStatus, FORMAT_VERSION, open_or_build};
+pub use reader::{IndexPostings, Postings};
+
+/// Why an index could not be built, opened or read.
+#[derive(Debug, thiserror::Error)]
+pub enum IndexError {
+    #[error("index error: {0}")]
+    Tantivy(#[from] tantivy::TantivyError),
+    #[error("cannot use the cache at {path}: {source}")]
+    Io {
+        path: String,
+        #[source]
+        source: std::io::Error,
+    },
+}
+
+impl From<std::io::Error> for IndexError {
+    fn from(source: std::io::Error) -> Self {
+        IndexError::Io {
+            path: "index".into(),
+            source,
+        }
+    }
+}
+
+/// Reports the progress of a long build. The CLI passes a progress bar; the library never
+/// prints.
+pub trait Progress {
+    fn begin(&self, total: u64, what: &str);
+    fn advance(&self, n: u64);
+    fn finish(&self);
+}
+
+/// Reports nothing.
+pub struct NoProgress;
+
+impl Progress for NoProgress {
+    fn begin(&self, _: u64, _: &str) {}
+    fn advance(&self, _: u64) {}
+    fn finish(&self) {}
+}

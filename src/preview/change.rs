@@ -1,0 +1,96 @@
+//! Reducing a rule change to what it can affect: surface forms whose key differs, the keys
+//! of both sides' groups that gained or lost members, and queries whose expansion differs.
+
+use rustc_hash::{FxHashMap, FxHashSet};
+
+use super::keys::SurfaceForms;
+use crate::analysis::{AnalyzedQuery, Analyzer};
+
+/// What a change touches.
+#[derive(Debug, Default)]
+pub struct ChangeSet {
+    /// Keys (of either side) whose conflation group gained or lost a member.
+    pub affected_keys: FxHashSet<String>,
+    /// Affected key → the surface forms that moved into or out of it.
+    pub moved_forms: FxHashMap<String, Vec<String>>,
+    pub changed_forms: usize,
+    /// Why every query must be evaluated, if so.
+    pub evaluate_all: Option<String>,
+}
+
+fn stopword_set(analyzer: &Analyzer) -> Vec<String> {
+    let mut v: Vec<String> = analyzer
+        .ruleset()
+        .pipeline
+        .stopwords
+        .iter()
+        .map(|t| analyzer.surface().form(&t.text).into_owned())
+        .collect();
+    v.sort();
+    v.dedup();
+    v
+}
+
+impl ChangeSet {
+    /// Compares the two rulesets' keys of every surface form of the index (`None` when
+    /// the surface settings differ and each side has its own index).
+    pub fn compute(base: &Analyzer, head: &Analyzer, forms: Option<&SurfaceForms>) -> ChangeSet {
+        let mut change = ChangeSet::default();
+        let Some(forms) = forms else {
+            change.evaluate_all = Some(
+                "the surface settings (tokenizer, case, accents) differ: every query was run, \
+                 each side on its own surface index"
+                    .into(),
+            );
+            return change;
+        };
+        if stopword_set(base) != stopword_set(head) {
+            change.evaluate_all = Some(
+                "the stopword lists differ, which changes every document's length: every query \
+                 was run"
+                    .into(),
+            );
+        }
+        let mut seen = FxHashSet::default();
+        for list in &forms.fields {
+            for form in list {
+                let (b, h) = (base.key(form), head.key(form));
+                if b == h || !seen.insert(form.as_str()) {
+                    continue;
+                }
+                change.changed_forms += 1;
+                for key in [b, h].into_iter().flatten() {
+                    change.affected_keys.insert(key.to_string());
+                    change
+                        .moved_forms
+                        .entry(key.into_owned())
+                        .or_default()
+                        .push(form.clone());
+                }
+            }
+        }
+        change
+    }
+}
+
+/// Every key a query's expansion mentions.
+pub fn touched_keys(query: &AnalyzedQuery) -> impl Iterator<Item = &str> {
+    query
+        .expansions
+        .iter()
+        .flat_map(|e| &e.alternatives)
+        .flat_map(|a| &a.phrase.keys)
+        .map(|(_, k)| k.as_str())
+}
+
+/// Whether two analyses retrieve the same way (rule indices aside).
+pub fn same_expansions(a: &AnalyzedQuery, b: &AnalyzedQuery) -> bool {
+    a.expansions.len() == b.expansions.len()
+        && a.expansions.iter().zip(&b.expansions).all(|(x, y)| {
+            x.alternatives.len() == y.alternatives.len()
+                && x.alternatives
+                    .iter()
+                    .zip(&y.alternatives)
+                    .all(|(p, q)| p.phrase == q.phrase)
+        })
+}

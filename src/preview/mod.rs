@@ -1,0 +1,593 @@
+//! `preview`: what a rule change does to real queries, on a sample index.
+//!
+//! # How it is fast and exact
+//!
+//! The corpus is indexed once on its **surface forms** ([`crate::index`], cached on disk).
+//! Each ruleset's view of that index maps every surface form to its key ([`ConflatedKeys`]);
+//! a key's postings are the union of its members' postings (positions merged), so its tf is
+//! the sum over members and its df the number of documents holding any member. Document
+//! length is the number of tokens the analyzer keeps (stopwords excluded).
+//!
+//! The change is first reduced ([`ChangeSet`]) to the surface forms whose key differs and
+//! the keys whose conflation group gained or lost members. Only queries whose analysis or
+//! expansion differs, or that touch an affected key, are run on both sides; every other
+//! query is reported unchanged without being run, which is exact: all the postings and
+//! statistics it reads are identical on both sides. When the stopword lists or the surface
+//! settings differ, every query is run (and the report says so).
+//!
+//! The reference path (an index per ruleset built with the real analyzer, read through
+//! [`DirectKeys`]) gives the same matches and scores; `tests/preview_exact.rs` checks it.
+//!
+//! # Retrieval
+//!
+//! A query is analyzed with the query-side analyzer and expanded by synonyms. Each
+//! [`Expansion`](crate::analysis::Expansion) is one **clause**; its alternatives are OR-ed,
+//! multi-word alternatives being phrases (relative positions include stopword gaps). A
+//! clause counts as one term: its tf in a field is the number of positions where any
+//! alternative matches, its df the number of documents where any alternative matches in
+//! that field. A document matches a clause when any field does; it matches the query under
+//! [`MatchMode`]: `all` clauses (the default), `any`, or `min:N` (at least N, capped at the
+//! number of clauses). A query with no clause (only stopwords) matches nothing.
+//!
+//! **BM25** (Robertson & Zaragoza 2009, "The Probabilistic Relevance Framework: BM25 and
+//! Beyond"), per field f with N documents, per-field average length avgdl_f:
+//! `idf = ln(1 + (N − df + 0.5)/(df + 0.5))`,
+//! `tf part = tf·(k1 + 1)/(tf + k1·(1 − b + b·dl/avgdl_f))`, k1 = 1.2 and b = 0.75 by
+//! default; the score is Σ_clauses Σ_f weight_f · idf · tf part.
+//!
+//! **Cosine** (`--ranking cosine`): per field, `w = (1 + ln tf)·ln(N/df)` for a clause and
+//! for every key of the document; the field score is Σ_clauses w / ‖d‖_f, where ‖d‖_f is the
+//! Euclidean norm of the document's vector of key weights under that ruleset (the query
+//! vector is binary over clauses, its norm left out as it is the same for every document);
+//! the score is Σ_f weight_f · field score. A zero norm gives 0.
+//!
+//! Rankings are sorted by score, ties broken by document id, and cut at top-k.
+
+mod attribution;
+mod change;
+mod keys;
+mod report;
+mod retrieve;
+
+use std::path::PathBuf;
+use std::sync::Arc;
+
+use rustc_hash::{FxHashMap, FxHashSet};
+use serde::Serialize;
+
+pub use attribution::{RuleIndex, Sides};
+pub use change::{ChangeSet, same_expansions, touched_keys};
+pub use keys::{ConflatedKeys, DirectKeys, KeySource, SurfaceForms};
+pub use report::*;
+pub use retrieve::{Hit, MatchMode, Ranking, Scoring, Stats, rank, retrieve};
+
+use crate::analysis::Analyzer;
+use crate::corpus::{Corpus, QueryLog};
+use crate::index::{self, IndexError, IndexPostings, Progress};
+use crate::metrics::{
+    self, EvalConfig, Judgments, Metric, MetricsError, Queries, RandomizationTest,
+};
+
+/// Judgments and the texts of the judged queries.
+pub struct JudgedSet {
+    pub judgments: Judgments,
+    pub texts: Queries,
+}
+
+/// What a preview compares.
+pub struct PreviewInput<'a> {
+    pub base: Arc<Analyzer>,
+    pub head: Arc<Analyzer>,
+    pub corpus: &'a Corpus,
+    pub queries: &'a QueryLog,
+    pub judged: Option<JudgedSet>,
+}
+
+#[derive(Clone, Debug)]
+pub struct PreviewOptions {
+    pub scoring: Scoring,
+    pub top_k: usize,
+    pub rbo_p: f64,
+    /// Gained and lost documents listed per query.
+    pub docs_shown: usize,
+    /// Where surface indexes are cached; `None` builds in memory.
+    pub cache_dir: Option<PathBuf>,
+    /// Rank every query on both sides, for TREC run files.
+    pub want_runs: bool,
+    pub test: RandomizationTest,
+}
+
+impl Default for PreviewOptions {
+    fn default() -> Self {
+        PreviewOptions {
+            scoring: Scoring::default(),
+            top_k: 10,
+            rbo_p: metrics::DEFAULT_RBO_P,
+            docs_shown: 10,
+            cache_dir: None,
+            want_runs: false,
+            test: RandomizationTest::default(),
+        }
+    }
+}
+
+/// One query's top-k on one side, for a TREC run file.
+#[derive(Clone, Debug, Serialize)]
+pub struct RunQuery {
+    pub qid: String,
+    pub docs: Vec<RankedDoc>,
+}
+
+#[derive(Clone, Debug, Default)]
+pub struct Runs {
+    pub base: Vec<RunQuery>,
+    pub head: Vec<RunQuery>,
+}
+
+pub struct PreviewOutcome {
+    pub report: PreviewReport,
+    pub runs: Option<Runs>,
+}
+
+#[derive(Debug, thiserror::Error)]
+pub enum PreviewError {
+    #[error(transparent)]
+    Index(#[from] IndexError),
+    #[error(transparent)]
+    Metrics(#[from] MetricsError),
+}
+
+/// A run in TREC format: `qid Q0 docid rank score tag`.
+pub fn trec_run(run: &[RunQuery], tag: &str) -> String {
+    let mut out = String::new();
+    for q in run {
+        for (i, d) in q.docs.iter().enumerate() {
+            out.push_str(&format!(
+                "{} Q0 {} {} {} {tag}\n",
+                q.qid,
+                d.id,
+                i + 1,
+                d.score
+            ));
+        }
+    }
+    out
+}
+
+/// The evaluation metrics at cut-off k.
+pub fn metric_list(k: usize) -> Vec<Metric> {
+    vec![
+        Metric::Precision(k),
+        Metric::Recall(k),
+        Metric::F1(k),
+        Metric::ReciprocalRank(None),
+        Metric::AveragePrecision(None),
+        Metric::Ndcg(Some(k)),
+    ]
+}
+
+struct Side<'a> {
+    analyzer: &'a Analyzer,
+    keys: ConflatedKeys<'a>,
+    stats: Stats,
+}
+
+fn make_side<'a>(
+    analyzer: &'a Analyzer,
+    postings: &'a IndexPostings,
+    forms: &'a SurfaceForms,
+    scoring: &Scoring,
+) -> Result<Side<'a>, IndexError> {
+    let keys = ConflatedKeys::new(postings, forms, analyzer)?;
+    let stats = Stats::compute(&keys, scoring)?;
+    Ok(Side {
+        analyzer,
+        keys,
+        stats,
+    })
+}
+
+struct Opened {
+    postings: IndexPostings,
+    status: String,
+}
+
+fn open(
+    corpus: &Corpus,
+    analyzer: &Analyzer,
+    options: &PreviewOptions,
+    progress: &dyn Progress,
+) -> Result<Opened, IndexError> {
+    let (idx, status) = match &options.cache_dir {
+        Some(dir) => {
+            let (idx, status, _) = index::open_or_build(corpus, analyzer.surface(), dir, progress)?;
+            let s = match status {
+                index::CacheStatus::Built => "built",
+                index::CacheStatus::Reused => "reused",
+            };
+            (idx, s)
+        }
+        None => (
+            index::build_surface_index(corpus, analyzer.surface(), None, progress)?,
+            "memory",
+        ),
+    };
+    Ok(Opened {
+        postings: IndexPostings::open(&idx, corpus.fields.len())?,
+        status: status.to_string(),
+    })
+}
+
+fn ruleset_info(a: &Analyzer) -> RulesetInfo {
+    let rs = a.ruleset();
+    RulesetInfo {
+        source: rs.source.clone(),
+        synonyms: rs.synonyms.len(),
+        exemptions: rs.exemptions.len(),
+        lemmas: rs.lemmas.len(),
+        stopwords: rs.pipeline.stopwords.len(),
+    }
+}
+
+/// Runs a preview.
+pub fn run(
+    input: PreviewInput<'_>,
+    options: &PreviewOptions,
+    progress: &dyn Progress,
+) -> Result<PreviewOutcome, PreviewError> {
+    let corpus = input.corpus;
+    let (base_a, head_a) = (&*input.base, &*input.head);
+    let same_surface = base_a.surface().fingerprint() == head_a.surface().fingerprint();
+    let opened_base = open(corpus, base_a, options, progress)?;
+    let opened_head = if same_surface {
+        None
+    } else {
+        Some(open(corpus, head_a, options, progress)?)
+    };
+    let forms_base = SurfaceForms::read(&opened_base.postings)?;
+    let forms_head = match &opened_head {
+        Some(o) => Some(SurfaceForms::read(&o.postings)?),
+        None => None,
+    };
+    let change = ChangeSet::compute(base_a, head_a, same_surface.then_some(&forms_base));
+    let side = |a, postings, forms| make_side(a, postings, forms, &options.scoring);
+    let base = side(base_a, &opened_base.postings, &forms_base)?;
+    let head = match (&opened_head, &forms_head) {
+        (Some(o), Some(f)) => side(head_a, &o.postings, f)?,
+        _ => side(head_a, &opened_base.postings, &forms_base)?,
+    };
+
+    let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
+    let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
+    let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery| {
+        retrieve(q, &s.keys, &s.stats, &options.scoring, &weights, &ids)
+    };
+
+    // Judged query texts → ids; judged texts missing from the log are run too.
+    let mut qid_of: FxHashMap<String, String> = FxHashMap::default();
+    if let Some(j) = &input.judged {
+        for q in j.texts.iter() {
+            if j.judgments.contains_query(&q.id) {
+                qid_of
+                    .entry(q.text.trim().to_string())
+                    .or_insert(q.id.clone());
+            }
+        }
+    }
+    let mut queries: Vec<(String, u64)> = input
+        .queries
+        .queries
+        .iter()
+        .map(|q| (q.query.clone(), q.count))
+        .collect();
+    let in_log: FxHashSet<String> = queries.iter().map(|q| q.0.clone()).collect();
+    let mut extra: Vec<&String> = qid_of.keys().filter(|t| !in_log.contains(*t)).collect();
+    extra.sort();
+    let log_len = queries.len();
+    queries.extend(extra.into_iter().map(|t| (t.clone(), 0)));
+
+    let sides = Sides {
+        base: base_a,
+        head: head_a,
+        base_rules: &RuleIndex::new(base_a),
+        head_rules: &RuleIndex::new(head_a),
+        change: &change,
+    };
+    let top = |hits: &[Hit]| -> Vec<RankedDoc> {
+        hits.iter()
+            .take(options.top_k)
+            .map(|h| RankedDoc {
+                id: ids[h.doc as usize].clone(),
+                score: h.score,
+            })
+            .collect()
+    };
+    let doc_ref = |d: u32| DocRef {
+        id: ids[d as usize].clone(),
+        title: corpus.documents[d as usize].title.clone(),
+    };
+
+    let mut changes = Vec::new();
+    let mut labels: FxHashMap<Label, (usize, u64)> = FxHashMap::default();
+    let mut evaluated = 0;
+    let mut runs = Runs::default();
+    let mut judged_rankings: Vec<(String, Vec<String>, Vec<String>)> = Vec::new();
+    for (i, (text, count)) in queries.iter().enumerate() {
+        let qid = qid_of.get(text).cloned();
+        let qb = base.analyzer.analyze_query(text);
+        let qh = head.analyzer.analyze_query(text);
+        let differs = !same_expansions(&qb, &qh);
+        let must = change.evaluate_all.is_some()
+            || differs
+            || touched_keys(&qb)
+                .chain(touched_keys(&qh))
+                .any(|k| change.affected_keys.contains(k));
+        let needs_ranking = qid.is_some() || options.want_runs;
+        let (top_b, top_h, label) = if must {
+            evaluated += 1;
+            let hb = run_side(&base, &qb)?;
+            let hh = run_side(&head, &qh)?;
+            let (tb, th) = (top(&hb), top(&hh));
+            let change = diff(
+                text,
+                *count,
+                &qid,
+                &hb,
+                &hh,
+                tb.clone(),
+                th.clone(),
+                options,
+            )?;
+            let label = change.label;
+            if label != Label::Unchanged && i < log_len {
+                let mut c = change;
+                let mut gained: Vec<u32> = Vec::new();
+                let mut lost: Vec<u32> = Vec::new();
+                let sb: FxHashSet<u32> = hb.iter().map(|h| h.doc).collect();
+                let sh: FxHashSet<u32> = hh.iter().map(|h| h.doc).collect();
+                gained.extend(sh.difference(&sb));
+                lost.extend(sb.difference(&sh));
+                let by_id =
+                    |v: &mut Vec<u32>| v.sort_by(|a, b| ids[*a as usize].cmp(&ids[*b as usize]));
+                by_id(&mut gained);
+                by_id(&mut lost);
+                c.gained = gained
+                    .into_iter()
+                    .take(options.docs_shown)
+                    .map(doc_ref)
+                    .collect();
+                c.lost = lost
+                    .into_iter()
+                    .take(options.docs_shown)
+                    .map(doc_ref)
+                    .collect();
+                c.causes = sides.attribute(text, &qb, &qh);
+                changes.push(c);
+            }
+            (tb, th, label)
+        } else if needs_ranking {
+            let tb = top(&run_side(&base, &qb)?);
+            (tb.clone(), tb, Label::Unchanged)
+        } else {
+            (Vec::new(), Vec::new(), Label::Unchanged)
+        };
+        if i < log_len {
+            let slot = labels.entry(label).or_default();
+            slot.0 += 1;
+            slot.1 += count;
+        }
+        if let Some(qid) = &qid {
+            let names = |v: &[RankedDoc]| v.iter().map(|d| d.id.clone()).collect();
+            judged_rankings.push((qid.clone(), names(&top_b), names(&top_h)));
+        }
+        if options.want_runs {
+            let qid = qid.clone().unwrap_or_else(|| format!("q{}", i + 1));
+            runs.base.push(RunQuery {
+                qid: qid.clone(),
+                docs: top_b,
+            });
+            runs.head.push(RunQuery { qid, docs: top_h });
+        }
+    }
+    changes.sort_by(|a, b| {
+        b.searches
+            .cmp(&a.searches)
+            .then_with(|| a.query.cmp(&b.query))
+    });
+
+    let searches = input.queries.total_searches();
+    let affected: u64 = labels
+        .iter()
+        .filter(|(l, _)| **l != Label::Unchanged)
+        .map(|(_, v)| v.1)
+        .sum();
+    let summary = Summary {
+        queries: log_len,
+        searches,
+        affected_searches: affected,
+        affected_share: if searches == 0 {
+            0.0
+        } else {
+            affected as f64 / searches as f64
+        },
+        labels: Label::ALL
+            .iter()
+            .map(|&label| {
+                let (queries, searches) = labels.get(&label).copied().unwrap_or_default();
+                LabelCount {
+                    label,
+                    queries,
+                    searches,
+                }
+            })
+            .collect(),
+    };
+    let quality = match &input.judged {
+        Some(j) => Some(quality(j, &judged_rankings, options)?),
+        None => None,
+    };
+    let report = PreviewReport {
+        notice: EVIDENCE_NOTICE.to_string(),
+        base: ruleset_info(base_a),
+        head: ruleset_info(head_a),
+        corpus: CorpusInfo {
+            source: corpus.source.clone(),
+            documents: corpus.len(),
+            fields: corpus.fields.clone(),
+            fingerprint: corpus.fingerprint.clone(),
+            index: opened_base.status.clone(),
+        },
+        queries_source: input.queries.source.clone(),
+        settings: Settings {
+            scoring: options.scoring,
+            ranking_definition: options.scoring.definition(),
+            top_k: options.top_k,
+            rbo_p: options.rbo_p,
+        },
+        evaluation: EvaluationInfo {
+            strategy: if change.evaluate_all.is_some() {
+                "all".into()
+            } else {
+                "affected".into()
+            },
+            reason: change.evaluate_all.clone(),
+            changed_forms: change.changed_forms,
+            affected_keys: change.affected_keys.len(),
+            queries: queries.len(),
+            evaluated,
+            skipped: queries.len() - evaluated,
+        },
+        summary,
+        queries: changes,
+        quality,
+    };
+    Ok(PreviewOutcome {
+        report,
+        runs: options.want_runs.then_some(runs),
+    })
+}
+
+#[allow(clippy::too_many_arguments)]
+fn diff(
+    text: &str,
+    searches: u64,
+    qid: &Option<String>,
+    before: &[Hit],
+    after: &[Hit],
+    top_before: Vec<RankedDoc>,
+    top_after: Vec<RankedDoc>,
+    options: &PreviewOptions,
+) -> Result<QueryChange, MetricsError> {
+    let sb: FxHashSet<u32> = before.iter().map(|h| h.doc).collect();
+    let sa: FxHashSet<u32> = after.iter().map(|h| h.doc).collect();
+    let gained = sa.difference(&sb).count();
+    let lost = sb.difference(&sa).count();
+    let same_top = top_before.len() == top_after.len()
+        && top_before.iter().zip(&top_after).all(|(x, y)| {
+            x.id == y.id && (x.score - y.score).abs() <= 1e-9 * x.score.abs().max(1.0)
+        });
+    let label = match (before.len(), after.len()) {
+        (0, n) if n > 0 => Label::Rescued,
+        (n, 0) if n > 0 => Label::Emptied,
+        _ if gained > lost => Label::Gained,
+        _ if lost > 0 => Label::Lost,
+        _ if !same_top => Label::Reordered,
+        _ => Label::Unchanged,
+    };
+    let names = |v: &[RankedDoc]| v.iter().map(|d| d.id.clone()).collect::<Vec<_>>();
+    let rbo = metrics::rbo_ext(&names(&top_before), &names(&top_after), options.rbo_p)?;
+    Ok(QueryChange {
+        query: text.to_string(),
+        qid: qid.clone(),
+        searches,
+        label,
+        mixed: gained > 0 && lost > 0,
+        matches_before: before.len(),
+        matches_after: after.len(),
+        gained_count: gained,
+        lost_count: lost,
+        gained: Vec::new(),
+        lost: Vec::new(),
+        rbo,
+        top_before,
+        top_after,
+        causes: Vec::new(),
+    })
+}
+
+fn quality(
+    judged: &JudgedSet,
+    rankings: &[(String, Vec<String>, Vec<String>)],
+    options: &PreviewOptions,
+) -> Result<Quality, MetricsError> {
+    let with_text: FxHashSet<&str> = rankings.iter().map(|r| r.0.as_str()).collect();
+    let mut judgments = Judgments::new();
+    let mut without_text = Vec::new();
+    for (qid, qj) in judged.judgments.iter() {
+        if !with_text.contains(qid) {
+            without_text.push(qid.to_string());
+            continue;
+        }
+        for (doc, grade) in qj.iter() {
+            judgments.insert(qid, doc, grade);
+        }
+    }
+    let config = EvalConfig::new(metric_list(options.top_k));
+    let before = metrics::evaluate(
+        rankings.iter().map(|r| (r.0.as_str(), r.1.as_slice())),
+        &judgments,
+        &config,
+    )?;
+    let after = metrics::evaluate(
+        rankings.iter().map(|r| (r.0.as_str(), r.2.as_slice())),
+        &judgments,
+        &config,
+    )?;
+    let cmp = metrics::compare(&before, &after, &options.test)?;
+    let text_of: FxHashMap<&str, &str> = judged
+        .texts
+        .iter()
+        .map(|q| (q.id.as_str(), q.text.as_str()))
+        .collect();
+    let per_query = before
+        .queries
+        .iter()
+        .map(|qid| JudgedQuery {
+            qid: qid.clone(),
+            query: text_of.get(qid.as_str()).unwrap_or(&"").to_string(),
+            before: config
+                .metrics
+                .iter()
+                .map(|&m| before.value(qid, m).unwrap_or(0.0))
+                .collect(),
+            after: config
+                .metrics
+                .iter()
+                .map(|&m| after.value(qid, m).unwrap_or(0.0))
+                .collect(),
+        })
+        .collect();
+    Ok(Quality {
+        judged_queries: before.queries.len(),
+        without_text,
+        test: "Fisher's randomization test, paired, two-sided (Smucker, Allan & Carterette 2007, \
+               \"A Comparison of Statistical Significance Tests for Information Retrieval \
+               Evaluation\")"
+            .into(),
+        metrics: cmp
+            .metrics
+            .iter()
+            .map(|m| MetricRow {
+                metric: m.metric,
+                before: m.before,
+                after: m.after,
+                difference: m.difference,
+                improved: m.improved,
+                worsened: m.worsened,
+                p_value: m.significance.p_value,
+                method: m.significance.method,
+            })
+            .collect(),
+        per_query,
+    })
+}

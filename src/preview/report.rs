@@ -1,0 +1,234 @@
+//! The result of a preview: one value that every renderer (text, JSON, and later the
+//! review's Markdown and HTML) turns into its format.
+
+use serde::Serialize;
+
+use super::retrieve::Scoring;
+use crate::corpus::FieldSpec;
+use crate::metrics::{Metric, TestMethod};
+
+/// What a sample preview can and cannot show.
+pub const EVIDENCE_NOTICE: &str = "A preview on a sample is evidence, not proof: if you depend \
+on recall (legal discovery, clinical or safety documents), validate the change against your own \
+full collection and your own rules of practice.";
+
+/// What happened to one query.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord, Hash, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Label {
+    /// Found nothing before, finds something now.
+    Rescued,
+    /// Found something before, finds nothing now.
+    Emptied,
+    /// Finds more documents (or more gained than lost).
+    Gained,
+    /// Finds fewer documents (or at least as many lost as gained).
+    Lost,
+    /// The same documents, in a different top-k order or with different scores.
+    Reordered,
+    Unchanged,
+}
+
+impl Label {
+    pub const ALL: [Label; 6] = [
+        Label::Rescued,
+        Label::Emptied,
+        Label::Gained,
+        Label::Lost,
+        Label::Reordered,
+        Label::Unchanged,
+    ];
+
+    pub fn name(self) -> &'static str {
+        match self {
+            Label::Rescued => "rescued",
+            Label::Emptied => "emptied",
+            Label::Gained => "gained",
+            Label::Lost => "lost",
+            Label::Reordered => "reordered",
+            Label::Unchanged => "unchanged",
+        }
+    }
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct PreviewReport {
+    /// [`EVIDENCE_NOTICE`].
+    pub notice: String,
+    pub base: RulesetInfo,
+    pub head: RulesetInfo,
+    pub corpus: CorpusInfo,
+    pub queries_source: String,
+    pub settings: Settings,
+    pub evaluation: EvaluationInfo,
+    pub summary: Summary,
+    /// Every query whose label is not `unchanged`, most searched first.
+    pub queries: Vec<QueryChange>,
+    pub quality: Option<Quality>,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct RulesetInfo {
+    pub source: String,
+    pub synonyms: usize,
+    pub exemptions: usize,
+    pub lemmas: usize,
+    pub stopwords: usize,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct CorpusInfo {
+    pub source: String,
+    pub documents: usize,
+    pub fields: Vec<FieldSpec>,
+    pub fingerprint: String,
+    /// `built`, `reused` or `memory` (no cache). Left out of JSON so that two runs of the
+    /// same preview give the same bytes.
+    #[serde(skip)]
+    pub index: String,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct Settings {
+    #[serde(flatten)]
+    pub scoring: Scoring,
+    pub ranking_definition: String,
+    pub top_k: usize,
+    pub rbo_p: f64,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct EvaluationInfo {
+    /// `affected` (only queries touching the change were run) or `all`.
+    pub strategy: String,
+    /// Why every query was run, when it was.
+    pub reason: Option<String>,
+    /// Surface forms whose key differs between the two rulesets.
+    pub changed_forms: usize,
+    /// Keys whose conflation group gained or lost members.
+    pub affected_keys: usize,
+    pub queries: usize,
+    /// Queries run on both sides.
+    pub evaluated: usize,
+    /// Queries reported unchanged without being run.
+    pub skipped: usize,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct LabelCount {
+    pub label: Label,
+    pub queries: usize,
+    pub searches: u64,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct Summary {
+    pub queries: usize,
+    pub searches: u64,
+    /// Searches whose query is not unchanged.
+    pub affected_searches: u64,
+    pub affected_share: f64,
+    pub labels: Vec<LabelCount>,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct DocRef {
+    pub id: String,
+    pub title: String,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct RankedDoc {
+    pub id: String,
+    pub score: f64,
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum CauseKind {
+    Synonym,
+    Exempt,
+    Lemma,
+    Stopwords,
+    /// A pipeline setting (the stemmer) changed the key.
+    Pipeline,
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum RuleChange {
+    Added,
+    Removed,
+    Changed,
+    /// The rule is the same on both sides; what it does to this query changed.
+    SameRuleNewEffect,
+}
+
+/// A rule that caused a query's change.
+#[derive(Clone, Debug, Serialize)]
+pub struct Cause {
+    pub kind: CauseKind,
+    /// The rule's id, or its file and line.
+    pub rule: String,
+    /// `file:line` of the rule (on the head side, or the base side for removed rules).
+    pub origin: Option<String>,
+    pub change: RuleChange,
+    /// For exemptions and lemmas: surface forms whose key changed (a few).
+    pub forms: Vec<String>,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct QueryChange {
+    pub query: String,
+    /// The judged query id, when the query is judged.
+    pub qid: Option<String>,
+    pub searches: u64,
+    pub label: Label,
+    /// Both documents gained and documents lost.
+    pub mixed: bool,
+    pub matches_before: usize,
+    pub matches_after: usize,
+    pub gained_count: usize,
+    pub lost_count: usize,
+    /// The first gained and lost documents (by document id), up to the report's limit.
+    pub gained: Vec<DocRef>,
+    pub lost: Vec<DocRef>,
+    /// RBO of the two top-k lists.
+    pub rbo: f64,
+    pub top_before: Vec<RankedDoc>,
+    pub top_after: Vec<RankedDoc>,
+    pub causes: Vec<Cause>,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct MetricRow {
+    pub metric: Metric,
+    pub before: f64,
+    pub after: f64,
+    pub difference: f64,
+    pub improved: usize,
+    pub worsened: usize,
+    pub p_value: f64,
+    pub method: TestMethod,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct JudgedQuery {
+    pub qid: String,
+    pub query: String,
+    /// In [`Quality::metrics`] order.
+    pub before: Vec<f64>,
+    pub after: Vec<f64>,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct Quality {
+    /// Judged queries with a text, evaluated.
+    pub judged_queries: usize,
+    /// Judged query ids without a text (not evaluated).
+    pub without_text: Vec<String>,
+    /// The test named, with its source.
+    pub test: String,
+    pub metrics: Vec<MetricRow>,
+    pub per_query: Vec<JudgedQuery>,
+}

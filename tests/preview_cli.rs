@@ -1,0 +1,174 @@
+//! `lexdelta preview` on the demo: live rules against the proposed change.
+
+use assert_cmd::Command;
+use serde_json::Value;
+
+fn preview(cache: &std::path::Path, extra: &[&str]) -> std::process::Output {
+    let mut cmd = Command::cargo_bin("lexdelta").unwrap();
+    cmd.current_dir(env!("CARGO_MANIFEST_DIR")).args([
+        "preview",
+        "--base",
+        "rules",
+        "--head",
+        "demo-corpus/proposed",
+        "--corpus",
+        "demo-corpus/documents.jsonl",
+        "--queries",
+        "demo-corpus/queries.jsonl",
+        "--judgments",
+        "demo-corpus/judgments.qrels",
+        "--judged-queries",
+        "demo-corpus/judged-queries.tsv",
+        "--cache",
+    ]);
+    cmd.arg(cache).args(extra);
+    cmd.output().unwrap()
+}
+
+fn json(cache: &std::path::Path) -> (Vec<u8>, Value) {
+    let out = preview(cache, &["--format", "json"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let value = serde_json::from_slice(&out.stdout).unwrap();
+    (out.stdout, value)
+}
+
+fn query<'a>(report: &'a Value, text: &str) -> &'a Value {
+    report["queries"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|q| q["query"] == text)
+        .unwrap_or_else(|| panic!("{text:?} is not among the changed queries"))
+}
+
+fn causes(q: &Value) -> Vec<(String, String)> {
+    q["causes"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|c| {
+            (
+                c["rule"].as_str().unwrap().to_string(),
+                c["origin"].as_str().unwrap_or("").to_string(),
+            )
+        })
+        .collect()
+}
+
+#[test]
+fn demo_preview_labels_and_attributes_the_change() {
+    let cache = tempfile::tempdir().unwrap();
+    let (first, report) = json(cache.path());
+
+    let stroller = query(&report, "stroller");
+    assert_eq!(stroller["label"], "rescued");
+    assert_eq!(stroller["matches_before"], 0);
+    assert!(
+        causes(stroller)
+            .iter()
+            .any(|(r, _)| r == "prams-and-pushchairs")
+    );
+
+    let left = query(&report, "left luggage");
+    assert!(left["gained_count"].as_u64().unwrap() + left["lost_count"].as_u64().unwrap() > 0);
+    assert!(
+        causes(left)
+            .iter()
+            .any(|(_, o)| o.starts_with("demo-corpus/proposed/irregular-verbs.yaml:")),
+        "{:?}",
+        causes(left)
+    );
+
+    let uni = query(&report, "university pass");
+    assert_ne!(uni["label"], "unchanged");
+    assert!(causes(uni).iter().any(|(r, _)| r == "accessible-travel"));
+
+    assert!(
+        report["notice"]
+            .as_str()
+            .unwrap()
+            .contains("evidence, not proof")
+    );
+    let quality = &report["quality"];
+    assert_eq!(quality["judged_queries"], 122);
+    assert!(
+        quality["test"]
+            .as_str()
+            .unwrap()
+            .contains("Fisher's randomization test")
+    );
+    let skipped = report["evaluation"]["skipped"].as_u64().unwrap();
+    assert!(skipped > 0, "unaffected queries are not run");
+
+    // The second run reuses the cache and prints the same bytes.
+    let (second, _) = json(cache.path());
+    assert_eq!(first, second);
+}
+
+#[test]
+fn text_output_and_run_files() {
+    let cache = tempfile::tempdir().unwrap();
+    let runs = cache.path().join("runs");
+    let out = preview(
+        cache.path(),
+        &[
+            "--color",
+            "never",
+            "--runs",
+            runs.to_str().unwrap(),
+            "--limit",
+            "3",
+        ],
+    );
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8(out.stdout).unwrap();
+    assert!(text.contains("changed queries (3 of"), "{text}");
+    assert!(text.contains("nDCG@10"));
+    assert!(text.contains("evidence, not proof"));
+    let base = std::fs::read_to_string(runs.join("base.run")).unwrap();
+    let first = base.lines().next().unwrap();
+    let cols: Vec<&str> = first.split(' ').collect();
+    assert_eq!(cols.len(), 6, "{first}");
+    assert_eq!(cols[1], "Q0");
+    assert_eq!(cols[5], "base");
+    assert!(base.lines().any(|l| l.starts_with("q001 Q0 ")));
+    assert!(
+        std::fs::read_to_string(runs.join("head.run"))
+            .unwrap()
+            .contains(" head\n")
+    );
+}
+
+#[test]
+fn bad_input_exits_2_with_the_line() {
+    let dir = tempfile::tempdir().unwrap();
+    let queries = dir.path().join("q.tsv");
+    std::fs::write(&queries, "pram\t3\nbus\tmany\n").unwrap();
+    let out = Command::cargo_bin("lexdelta")
+        .unwrap()
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .args([
+            "preview",
+            "--base",
+            "rules",
+            "--head",
+            "demo-corpus/proposed",
+            "--corpus",
+            "demo-corpus/documents.jsonl",
+            "--no-cache",
+            "--queries",
+        ])
+        .arg(&queries)
+        .output()
+        .unwrap();
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("q.tsv:2:"));
+}
