@@ -1,6 +1,8 @@
 //! Command-line interface: one file per command, each with its arguments and `run`.
 
+mod collisions;
 mod import;
+mod stemcheck;
 mod trace;
 
 use std::io::Write;
@@ -26,6 +28,8 @@ pub struct Cli {
 enum Command {
     Trace(trace::Args),
     Import(import::Args),
+    Collisions(collisions::Args),
+    Stemcheck(stemcheck::Args),
 }
 
 /// An error the CLI reports on stderr with exit code 2.
@@ -64,6 +68,8 @@ pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
     match cli.command {
         Command::Trace(args) => trace::run(args),
         Command::Import(args) => import::run(args),
+        Command::Collisions(args) => collisions::run(args),
+        Command::Stemcheck(args) => stemcheck::run(args),
     }
 }
 
