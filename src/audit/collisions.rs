@@ -119,7 +119,12 @@ impl KeyIndex<'_> {
 }
 
 /// Keys every form once (on `threads` threads), groups forms by key and scores each group.
-pub fn find(analyzer: &Analyzer, vocabulary: &Vocabulary, morphy: &Morphy, threads: usize) -> Groups {
+pub fn find(
+    analyzer: &Analyzer,
+    vocabulary: &Vocabulary,
+    morphy: &Morphy,
+    threads: usize,
+) -> Groups {
     let keyed = key_forms(analyzer, &vocabulary.forms, threads);
     let mut groups = 0;
     let mut collisions = Vec::new();
@@ -198,7 +203,11 @@ pub fn score(key: &str, forms: &[&FormStats], morphy: &Morphy) -> Option<Collisi
     if classes.len() < 2 {
         return None;
     }
-    classes.sort_by(|a, b| b.weight().cmp(&a.weight()).then_with(|| a.base.cmp(&b.base)));
+    classes.sort_by(|a, b| {
+        b.weight()
+            .cmp(&a.weight())
+            .then_with(|| a.base.cmp(&b.base))
+    });
     let (risk, evenness) = risk(&classes.iter().map(MeaningClass::weight).collect::<Vec<_>>());
     Some(Collision {
         key: key.to_string(),

@@ -36,10 +36,7 @@ pub fn parse_groups(text: &str, surface: &SurfaceStage) -> Result<ConceptGroups,
             match tokens.as_slice() {
                 [one] => group.push(one.form.clone()),
                 _ => {
-                    return Err((
-                        i + 1,
-                        format!("{word:?} is not one word for the tokenizer"),
-                    ));
+                    return Err((i + 1, format!("{word:?} is not one word for the tokenizer")));
                 }
             }
         }
@@ -89,7 +86,10 @@ mod tests {
     fn groups_split_on_commas_and_spaces_and_skip_comments() {
         let s = SurfaceStage::from_pipeline(&Pipeline::default());
         let g = parse_groups("# words\nRun, runs running\n\nmouse mice # plural\n", &s).unwrap();
-        assert_eq!(g.groups, vec![vec!["run", "runs", "running"], vec!["mouse", "mice"]]);
+        assert_eq!(
+            g.groups,
+            vec![vec!["run", "runs", "running"], vec!["mouse", "mice"]]
+        );
         assert_eq!(parse_groups("ice-cream\n", &s).unwrap_err().0, 1);
     }
 }

@@ -114,7 +114,11 @@ pub fn estimate_effect(
             });
         }
     }
-    queries.sort_by(|a, b| b.searches.cmp(&a.searches).then_with(|| a.query.cmp(&b.query)));
+    queries.sort_by(|a, b| {
+        b.searches
+            .cmp(&a.searches)
+            .then_with(|| a.query.cmp(&b.query))
+    });
     Effect {
         searches: queries.iter().map(|q| q.searches).sum(),
         queries,

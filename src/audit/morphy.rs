@@ -165,8 +165,7 @@ impl Part {
         for (suffix, ending) in rules(pos) {
             if let Some(stem) = word.strip_suffix(suffix) {
                 let candidate = format!("{stem}{ending}");
-                if !candidate.is_empty() && candidate != word && self.lemmas.contains(&*candidate)
-                {
+                if !candidate.is_empty() && candidate != word && self.lemmas.contains(&*candidate) {
                     out.insert(candidate);
                 }
             }
@@ -212,7 +211,11 @@ mod tests {
     fn rules_from_morph_c_on_a_tiny_dictionary() {
         // Hand-made index and exception text, to pin the rules without WordNet installed.
         let m = Morphy::from_texts(&[
-            (PartOfSpeech::Noun, "box n 1\nglass n 1\nchurch n 1\n", "oxen ox\n"),
+            (
+                PartOfSpeech::Noun,
+                "box n 1\nglass n 1\nchurch n 1\n",
+                "oxen ox\n",
+            ),
             (PartOfSpeech::Verb, "hope v 1\nhop v 1\n", ""),
             (PartOfSpeech::Adj, "big a 1\nlarge a 1\n", "bigger big\n"),
         ])

@@ -54,7 +54,11 @@ impl Postings {
 
     /// The documents containing any of `forms`.
     pub fn union<'a>(&self, forms: impl IntoIterator<Item = &'a str>) -> Vec<u32> {
-        let mut out: Vec<u32> = forms.into_iter().flat_map(|f| self.get(f)).copied().collect();
+        let mut out: Vec<u32> = forms
+            .into_iter()
+            .flat_map(|f| self.get(f))
+            .copied()
+            .collect();
         out.sort_unstable();
         out.dedup();
         out

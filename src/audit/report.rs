@@ -91,9 +91,8 @@ pub fn collision_report(
         suggestions
             .iter()
             .map(|s| {
-                s.as_ref().map(|s| {
-                    effect::estimate_effect(s, &index, &postings, analyzer.surface(), log)
-                })
+                s.as_ref()
+                    .map(|s| effect::estimate_effect(s, &index, &postings, analyzer.surface(), log))
             })
             .collect::<Vec<_>>()
     });

@@ -54,7 +54,11 @@ impl ConceptGroups {
         let mut seen = rustc_hash::FxHashSet::default();
         let groups = groups
             .into_iter()
-            .map(|g| g.into_iter().filter(|w| seen.insert(w.clone())).collect::<Vec<_>>())
+            .map(|g| {
+                g.into_iter()
+                    .filter(|w| seen.insert(w.clone()))
+                    .collect::<Vec<_>>()
+            })
             .filter(|g| !g.is_empty())
             .collect();
         ConceptGroups { groups }
@@ -136,7 +140,11 @@ pub fn errt(point: (f64, f64), line: &[(f64, f64)]) -> Option<f64> {
         let lambda = (dx * a.1 - dy * a.0) / det;
         let t = (px * a.1 - py * a.0) / det;
         let lo = if i == 0 { f64::NEG_INFINITY } else { -1e-12 };
-        let hi = if i == last { f64::INFINITY } else { 1.0 + 1e-12 };
+        let hi = if i == last {
+            f64::INFINITY
+        } else {
+            1.0 + 1e-12
+        };
         if lambda > 0.0 && t >= lo && t <= hi {
             return Some(1.0 / lambda);
         }

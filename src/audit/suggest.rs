@@ -25,8 +25,17 @@ use crate::rules::{
 #[derive(Clone, Debug, PartialEq, Eq, Serialize)]
 #[serde(tag = "kind", rename_all = "snake_case")]
 pub enum SuggestedRule {
-    Exempt { id: String, term: String, note: String },
-    Lemma { id: String, form: String, lemma: String, note: String },
+    Exempt {
+        id: String,
+        term: String,
+        note: String,
+    },
+    Lemma {
+        id: String,
+        form: String,
+        lemma: String,
+        note: String,
+    },
 }
 
 /// A verified way to split one group.
@@ -85,7 +94,11 @@ fn target(live: &Analyzer, class: &MeaningClass) -> String {
     class
         .forms
         .iter()
-        .max_by(|a, b| a.documents.cmp(&b.documents).then_with(|| b.form.cmp(&a.form)))
+        .max_by(|a, b| {
+            a.documents
+                .cmp(&b.documents)
+                .then_with(|| b.form.cmp(&a.form))
+        })
         .map(|f| f.form.clone())
         .unwrap_or_default()
 }

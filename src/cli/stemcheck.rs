@@ -59,15 +59,18 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let analyzers = [
         ("bare stemmer", Analyzer::new(bare)?),
         ("stemmer + exemptions", Analyzer::new(exempt_only)?),
-        ("stemmer + exemptions + lemma overrides", Analyzer::new(ruleset)?),
+        (
+            "stemmer + exemptions + lemma overrides",
+            Analyzer::new(ruleset)?,
+        ),
     ];
     let surface = analyzers[2].1.surface();
     let (groups, source) = match (&args.groups, &args.corpus) {
         (Some(path), _) => (read_groups(path, surface)?, path.display().to_string()),
-        (None, Some(corpus)) => (corpus_groups(&args, corpus, &analyzers[2].1)?, format!(
-            "WordNet over {}",
-            corpus.display()
-        )),
+        (None, Some(corpus)) => (
+            corpus_groups(&args, corpus, &analyzers[2].1)?,
+            format!("WordNet over {}", corpus.display()),
+        ),
         (None, None) => unreachable!("clap requires --groups or --wordnet-groups --corpus"),
     };
     let stems: Vec<Box<dyn Fn(&str) -> String + '_>> = analyzers
@@ -99,6 +102,7 @@ fn corpus_groups(
     let morphy = Morphy::load(&args.wordnet)?;
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
     let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, None, threads);
-    let (groups, _skipped) = wordnet_groups(vocabulary.forms.iter().map(|f| f.form.as_str()), &morphy);
+    let (groups, _skipped) =
+        wordnet_groups(vocabulary.forms.iter().map(|f| f.form.as_str()), &morphy);
     Ok(groups)
 }

@@ -31,7 +31,9 @@ pub fn render(report: &CollisionReport) -> String {
                 class.documents.to_string(),
                 class.searches.to_string(),
                 forms.join(" "),
-                c.suggestion.as_ref().map_or(String::new(), |s| s.kept.clone()),
+                c.suggestion
+                    .as_ref()
+                    .map_or(String::new(), |s| s.kept.clone()),
                 c.effect
                     .as_ref()
                     .map_or(String::new(), |e| e.searches.to_string()),

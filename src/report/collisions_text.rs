@@ -26,7 +26,11 @@ pub fn render(report: &CollisionReport, style: Style) -> String {
             }
         ))
     );
-    let _ = writeln!(out, "ruleset: {}  corpus: {}", report.ruleset, report.corpus);
+    let _ = writeln!(
+        out,
+        "ruleset: {}  corpus: {}",
+        report.ruleset, report.corpus
+    );
     for c in &report.collisions {
         group(&mut out, c, style);
     }
@@ -56,7 +60,11 @@ fn group(out: &mut String, c: &RankedCollision, style: Style) {
     }
     match &c.suggestion {
         Some(s) => {
-            let _ = writeln!(out, "     suggestion (verified; \"{}\" keeps the key):", s.kept);
+            let _ = writeln!(
+                out,
+                "     suggestion (verified; \"{}\" keeps the key):",
+                s.kept
+            );
             for line in s.yaml.lines() {
                 let _ = writeln!(out, "       {}", style.green(line));
             }

@@ -11,7 +11,7 @@ pub fn render(report: &StemcheckReport) -> String {
     );
     let _ = writeln!(
         out,
-        "{:<36} {:>8} {:>8} {:>9} {:>7}",
+        "{:<40} {:>8} {:>8} {:>9} {:>7}",
         "stemmer", "UI", "OI", "SW", "ERRT"
     );
     for row in &report.rows {
@@ -31,7 +31,7 @@ fn line(out: &mut String, row: &Row) {
     };
     let _ = writeln!(
         out,
-        "{:<36} {:>8.5} {:>8.6} {:>9} {:>7}",
+        "{:<40} {:>8.5} {:>8.6} {:>9} {:>7}",
         row.name,
         i.ui,
         i.oi,
