@@ -43,6 +43,9 @@ pub struct Args {
     format: Format,
 }
 
+/// A stemmer under test: a word in, its key out.
+type StemFn<'a> = dyn Fn(&str) -> String + 'a;
+
 #[derive(Clone, Copy, Debug, clap::ValueEnum)]
 enum Format {
     Text,
@@ -73,7 +76,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         ),
         (None, None) => unreachable!("clap requires --groups or --wordnet-groups --corpus"),
     };
-    let stems: Vec<Box<dyn Fn(&str) -> String + '_>> = analyzers
+    let stems: Vec<Box<StemFn>> = analyzers
         .iter()
         .map(|(_, a)| Box::new(move |w: &str| a.key_ignoring_stopwords(w).into_owned()) as _)
         .collect();
