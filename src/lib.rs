@@ -55,6 +55,7 @@
 
 pub mod analysis;
 pub mod atomic;
+pub mod audit;
 pub mod corpus;
 pub mod import;
 pub mod index;

@@ -1,7 +1,9 @@
 //! Command-line interface: one file per command, each with its arguments and `run`.
 
+mod collisions;
 mod import;
 mod preview;
+mod stemcheck;
 mod trace;
 
 use std::io::Write;
@@ -28,6 +30,8 @@ enum Command {
     Trace(trace::Args),
     Import(import::Args),
     Preview(Box<preview::Args>),
+    Collisions(collisions::Args),
+    Stemcheck(stemcheck::Args),
 }
 
 /// An error the CLI reports on stderr with exit code 2.
@@ -67,6 +71,8 @@ pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
         Command::Trace(args) => trace::run(args),
         Command::Import(args) => import::run(args),
         Command::Preview(args) => preview::run(*args),
+        Command::Collisions(args) => collisions::run(args),
+        Command::Stemcheck(args) => stemcheck::run(args),
     }
 }
 

@@ -1,6 +1,10 @@
 //! Renderers: each turns one result value into one output format, as a string. None of
 //! them prints.
 
+pub mod collisions_csv;
+pub mod collisions_json;
+pub mod collisions_text;
+pub mod stemcheck_text;
 pub mod style;
 pub mod trace_text;
 

@@ -1,0 +1,122 @@
+//! The collision report: vocabulary, ranked risky groups, a verified suggestion for each
+//! shown group and, with a query log, its effect. One function computes it; renderers in
+//! `report::collisions_*` turn it into text, JSON or CSV.
+
+use rustc_hash::FxHashSet;
+use serde::Serialize;
+
+use super::collisions::{self, Collision, KeyIndex};
+use super::effect::{self, Effect};
+use super::morphy::Morphy;
+use super::postings::Postings;
+use super::suggest::{self, Suggestion};
+use super::vocabulary::Vocabulary;
+use crate::analysis::Analyzer;
+use crate::corpus::{Corpus, QueryLog};
+
+/// How much to compute.
+#[derive(Clone, Debug)]
+pub struct CollisionOptions {
+    /// Show this many groups (all when `None`).
+    pub top: Option<usize>,
+    pub threads: usize,
+}
+
+impl Default for CollisionOptions {
+    fn default() -> Self {
+        CollisionOptions {
+            top: Some(20),
+            threads: std::thread::available_parallelism().map_or(1, |n| n.get()),
+        }
+    }
+}
+
+/// A shown group with its rank, suggestion and effect.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct RankedCollision {
+    pub rank: usize,
+    #[serde(flatten)]
+    pub collision: Collision,
+    pub suggestion: Option<Suggestion>,
+    pub effect: Option<Effect>,
+}
+
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct CollisionReport {
+    pub ruleset: String,
+    pub corpus: String,
+    pub query_log: Option<String>,
+    pub documents: usize,
+    pub queries: usize,
+    pub searches: u64,
+    /// Distinct surface forms.
+    pub forms: usize,
+    /// Conflation groups with two forms or more.
+    pub groups: usize,
+    /// Groups with more than one meaning class (risk > 0).
+    pub risky: usize,
+    pub collisions: Vec<RankedCollision>,
+}
+
+/// Builds the report.
+pub fn collision_report(
+    analyzer: &Analyzer,
+    corpus: &Corpus,
+    log: Option<&QueryLog>,
+    morphy: &Morphy,
+    options: &CollisionOptions,
+) -> CollisionReport {
+    let threads = options.threads.max(1);
+    let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, log, threads);
+    let found = collisions::find(analyzer, &vocabulary, morphy, threads);
+    let index = KeyIndex {
+        keyed: &found.keyed,
+        vocabulary: &vocabulary,
+    };
+    let shown: Vec<&Collision> = found
+        .collisions
+        .iter()
+        .take(options.top.unwrap_or(usize::MAX))
+        .collect();
+    let suggestions: Vec<Option<Suggestion>> = shown
+        .iter()
+        .map(|c| suggest::suggest(analyzer, c, &index))
+        .collect();
+    let effects = log.map(|log| {
+        let mut wanted = FxHashSet::default();
+        for s in suggestions.iter().flatten() {
+            effect::forms_needed(s, &index, &mut wanted);
+        }
+        let postings = Postings::collect(analyzer.surface(), &corpus.documents, &wanted, threads);
+        suggestions
+            .iter()
+            .map(|s| {
+                s.as_ref()
+                    .map(|s| effect::estimate_effect(s, &index, &postings, analyzer.surface(), log))
+            })
+            .collect::<Vec<_>>()
+    });
+    let collisions = shown
+        .into_iter()
+        .zip(suggestions)
+        .enumerate()
+        .map(|(i, (c, suggestion))| RankedCollision {
+            rank: i + 1,
+            collision: c.clone(),
+            suggestion,
+            effect: effects.as_ref().and_then(|e| e[i].clone()),
+        })
+        .collect();
+    CollisionReport {
+        ruleset: analyzer.ruleset().source.clone(),
+        corpus: corpus.source.clone(),
+        query_log: log.map(|l| l.source.clone()),
+        documents: vocabulary.documents,
+        queries: vocabulary.queries,
+        searches: vocabulary.searches,
+        forms: vocabulary.forms.len(),
+        groups: found.groups,
+        risky: found.collisions.len(),
+        collisions,
+    }
+}

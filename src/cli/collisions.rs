@@ -1,0 +1,115 @@
+//! `lexdelta collisions`: conflation groups that merge words of different meanings.
+
+use std::path::PathBuf;
+use std::process::ExitCode;
+
+use lexdelta::analysis::Analyzer;
+use lexdelta::atomic::write_file;
+use lexdelta::audit::morphy::Morphy;
+use lexdelta::audit::report::{CollisionOptions, collision_report};
+use lexdelta::audit::suggest::rule_file;
+use lexdelta::corpus::{DocOptions, read_documents, read_queries};
+use lexdelta::report::{ColorChoice, Style, collisions_csv, collisions_json, collisions_text};
+
+use super::{CliError, print};
+
+/// Rank the corpus's conflation groups that merge words WordNet gives different base
+/// forms, with a verified exemption or lemma override that splits each one.
+#[derive(Debug, clap::Args)]
+#[command(
+    after_help = "Examples:\n  lexdelta collisions --corpus demo-corpus/documents.jsonl --queries demo-corpus/queries.jsonl\n  lexdelta collisions --corpus docs.jsonl --top 50 --format csv > groups.csv\n  lexdelta collisions --corpus docs.jsonl --queries q.jsonl --accept univers,transit --write rules/split-groups.yaml\n\nRisk = (W - heaviest meaning's weight) * m/(m-1), where a meaning's weight is its forms'\ndocument frequencies plus the searches that mention them, W the group's total and m its\nnumber of meanings. Every suggestion is checked by recompiling the analyzer with it.\n--write never replaces an existing file without --force."
+)]
+pub struct Args {
+    /// The ruleset directory.
+    #[arg(long, default_value = "rules")]
+    rules: PathBuf,
+    /// The documents (JSON Lines, CSV, or a directory of .txt/.md files).
+    #[arg(long)]
+    corpus: PathBuf,
+    /// A query log: adds traffic to the risk and shows each suggestion's effect.
+    #[arg(long)]
+    queries: Option<PathBuf>,
+    /// The WordNet 3.0 `dict` directory.
+    #[arg(long, default_value = "/usr/share/wordnet")]
+    wordnet: PathBuf,
+    /// Show this many groups.
+    #[arg(long, default_value_t = 20)]
+    top: usize,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    format: Format,
+    /// Colour: auto, always or never.
+    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
+    color: ColorChoice,
+    /// Write the shown groups' suggestions (or only --accept's) as a new rule file.
+    #[arg(long)]
+    write: Option<PathBuf>,
+    /// Keys of the groups whose suggestions --write takes, comma-separated.
+    #[arg(long, value_delimiter = ',', requires = "write")]
+    accept: Vec<String>,
+    /// Replace the --write file if it exists.
+    #[arg(long)]
+    force: bool,
+    /// Worker threads (default: all cores).
+    #[arg(long)]
+    threads: Option<usize>,
+}
+
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum Format {
+    Text,
+    Json,
+    Csv,
+}
+
+pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    let analyzer = Analyzer::load(&args.rules)?;
+    let corpus = read_documents(&args.corpus, &DocOptions::default())?;
+    let log = args.queries.as_deref().map(read_queries).transpose()?;
+    let morphy = Morphy::load(&args.wordnet)?;
+    let mut options = CollisionOptions {
+        top: Some(args.top),
+        ..CollisionOptions::default()
+    };
+    if let Some(n) = args.threads {
+        options.threads = n.max(1);
+    }
+    let report = collision_report(&analyzer, &corpus, log.as_ref(), &morphy, &options);
+    if let Some(path) = &args.write {
+        write_rules(&report, path, &args.accept, args.force)?;
+    }
+    let rendered = match args.format {
+        Format::Text => collisions_text::render(&report, Style::for_stdout(args.color)),
+        Format::Json => collisions_json::render(&report),
+        Format::Csv => collisions_csv::render(&report),
+    };
+    print(&rendered)?;
+    Ok(ExitCode::SUCCESS)
+}
+
+fn write_rules(
+    report: &lexdelta::audit::report::CollisionReport,
+    path: &std::path::Path,
+    accept: &[String],
+    force: bool,
+) -> Result<(), CliError> {
+    for key in accept {
+        if !report.collisions.iter().any(|c| &c.collision.key == key) {
+            return Err(CliError(
+                format!("--accept {key:?}: no shown group has that key (raise --top?)"),
+                false,
+            ));
+        }
+    }
+    let accepted: Vec<_> = report
+        .collisions
+        .iter()
+        .filter(|c| accept.is_empty() || accept.contains(&c.collision.key))
+        .filter_map(|c| c.suggestion.as_ref())
+        .collect();
+    if accepted.is_empty() {
+        return Err(CliError("no verified suggestion to write".into(), false));
+    }
+    write_file(path, rule_file(&accepted).as_bytes(), force)?;
+    Ok(())
+}

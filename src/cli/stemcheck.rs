@@ -1,0 +1,111 @@
+//! `lexdelta stemcheck`: Paice's under- and over-stemming indices for the ruleset.
+
+use std::path::PathBuf;
+use std::process::ExitCode;
+
+use lexdelta::analysis::Analyzer;
+use lexdelta::audit::concepts::{read_groups, wordnet_groups};
+use lexdelta::audit::morphy::Morphy;
+use lexdelta::audit::stemcheck::{ConceptGroups, stemcheck};
+use lexdelta::audit::vocabulary::Vocabulary;
+use lexdelta::corpus::{DocOptions, read_documents};
+use lexdelta::report::stemcheck_text;
+use lexdelta::rules::load_dir;
+
+use super::{CliError, print};
+
+/// Measure under-stemming (UI), over-stemming (OI), their ratio (SW) and the error rate
+/// relative to truncation (ERRT) for the bare stemmer, the stemmer with the ruleset's
+/// exemptions, and with its lemma overrides too.
+#[derive(Debug, clap::Args)]
+#[command(
+    after_help = "Examples:\n  lexdelta stemcheck --groups concepts.txt\n  lexdelta stemcheck --wordnet-groups --corpus demo-corpus/documents.jsonl --rules rules\n  lexdelta stemcheck --groups concepts.txt --format json\n\nA groups file holds one concept group per line, words separated by spaces or commas;\n`#` starts a comment. --wordnet-groups groups the corpus's words by their WordNet base\nform (morphy). Method: Paice, SIGIR '94 and JASIS 47(8), 1996.",
+    group(clap::ArgGroup::new("source").required(true).args(["groups", "wordnet_groups"]))
+)]
+pub struct Args {
+    /// The ruleset directory.
+    #[arg(long, default_value = "rules")]
+    rules: PathBuf,
+    /// A concept-group file.
+    #[arg(long)]
+    groups: Option<PathBuf>,
+    /// Derive concept groups from WordNet over the --corpus vocabulary.
+    #[arg(long, requires = "corpus")]
+    wordnet_groups: bool,
+    /// The documents whose vocabulary --wordnet-groups uses.
+    #[arg(long)]
+    corpus: Option<PathBuf>,
+    /// The WordNet 3.0 `dict` directory.
+    #[arg(long, default_value = "/usr/share/wordnet")]
+    wordnet: PathBuf,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    format: Format,
+}
+
+/// A stemmer under test: a word in, its key out.
+type StemFn<'a> = dyn Fn(&str) -> String + 'a;
+
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum Format {
+    Text,
+    Json,
+}
+
+pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    let ruleset = load_dir(&args.rules)?;
+    let mut bare = ruleset.clone();
+    bare.exemptions.clear();
+    bare.lemmas.clear();
+    let mut exempt_only = ruleset.clone();
+    exempt_only.lemmas.clear();
+    let analyzers = [
+        ("bare stemmer", Analyzer::new(bare)?),
+        ("stemmer + exemptions", Analyzer::new(exempt_only)?),
+        (
+            "stemmer + exemptions + lemma overrides",
+            Analyzer::new(ruleset)?,
+        ),
+    ];
+    let surface = analyzers[2].1.surface();
+    let (groups, source) = match (&args.groups, &args.corpus) {
+        (Some(path), _) => (read_groups(path, surface)?, path.display().to_string()),
+        (None, Some(corpus)) => (
+            corpus_groups(&args, corpus, &analyzers[2].1)?,
+            format!("WordNet over {}", corpus.display()),
+        ),
+        (None, None) => unreachable!("clap requires --groups or --wordnet-groups --corpus"),
+    };
+    let stems: Vec<Box<StemFn>> = analyzers
+        .iter()
+        .map(|(_, a)| Box::new(move |w: &str| a.key_ignoring_stopwords(w).into_owned()) as _)
+        .collect();
+    let report = stemcheck(
+        &source,
+        &groups,
+        analyzers
+            .iter()
+            .zip(&stems)
+            .map(|((name, _), f)| (name.to_string(), f.as_ref())),
+    );
+    let rendered = match args.format {
+        Format::Text => stemcheck_text::render(&report),
+        Format::Json => serde_json::to_string_pretty(&report)? + "\n",
+    };
+    print(&rendered)?;
+    Ok(ExitCode::SUCCESS)
+}
+
+fn corpus_groups(
+    args: &Args,
+    corpus: &std::path::Path,
+    analyzer: &Analyzer,
+) -> Result<ConceptGroups, CliError> {
+    let corpus = read_documents(corpus, &DocOptions::default())?;
+    let morphy = Morphy::load(&args.wordnet)?;
+    let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
+    let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, None, threads);
+    let (groups, _skipped) =
+        wordnet_groups(vocabulary.forms.iter().map(|f| f.form.as_str()), &morphy);
+    Ok(groups)
+}
