@@ -3,6 +3,7 @@
 mod collisions;
 mod import;
 mod preview;
+mod sample;
 mod stemcheck;
 mod trace;
 

@@ -1,22 +1,16 @@
 //! `lexdelta preview`: before/after over a query set on a sample index.
 
-use std::io::IsTerminal;
 use std::path::PathBuf;
 use std::process::ExitCode;
 use std::sync::Arc;
 
-use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
 use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
-use lexdelta::corpus::{DocOptions, FieldSpec, Sample, read_documents, read_queries};
-use lexdelta::index::Progress;
-use lexdelta::metrics::{self, RandomizationTest};
-use lexdelta::preview::{
-    self, JudgedSet, MatchMode, PreviewInput, PreviewOptions, Ranking, Scoring,
-};
+use lexdelta::preview::{self, PreviewInput};
 use lexdelta::report::preview_text::Limits;
 use lexdelta::report::{ColorChoice, Style, preview_json, preview_text};
 
+use super::sample::{SampleArgs, bar};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -49,52 +43,6 @@ pub struct Args {
     /// The changed ruleset.
     #[arg(long, value_name = "DIR")]
     head: PathBuf,
-    /// Documents: JSON Lines, CSV with a header, or a directory of .txt/.md files.
-    #[arg(long, value_name = "FILE")]
-    corpus: PathBuf,
-    /// Queries: one per line, TSV `query<TAB>count`, or a JSON Lines query log (.jsonl).
-    #[arg(long, value_name = "FILE")]
-    queries: PathBuf,
-    /// Relevance judgments: TREC qrels (with --judged-queries) or CSV
-    /// (`query_id,query,doc_id,relevance`).
-    #[arg(long, value_name = "FILE")]
-    judgments: Option<PathBuf>,
-    /// The text of each judged query, `QID<TAB>text` (for qrels judgments).
-    #[arg(long, value_name = "FILE")]
-    judged_queries: Option<PathBuf>,
-    /// A searched field with its weight, `name` or `name^weight`; repeat for several.
-    #[arg(long = "field", value_name = "NAME[^W]", default_values = ["title^2", "body"])]
-    fields: Vec<String>,
-    /// The document id field.
-    #[arg(long, default_value = "id")]
-    id_field: String,
-    /// The field shown as a document's title.
-    #[arg(long, default_value = "title")]
-    title_field: String,
-    /// Keep a random sample of the documents: a count (1000) or a fraction (0.1).
-    #[arg(long, value_name = "N")]
-    sample: Option<String>,
-    /// Seed of the sample.
-    #[arg(long, default_value_t = 42)]
-    seed: u64,
-    /// Which documents match: all clauses, any clause, or at least N (`min:N`).
-    #[arg(long = "match", value_name = "MODE", default_value = "all")]
-    mode: String,
-    /// Ranking function.
-    #[arg(long, value_enum, default_value_t = Ranking::Bm25)]
-    ranking: Ranking,
-    /// BM25 k1.
-    #[arg(long, default_value_t = 1.2)]
-    k1: f64,
-    /// BM25 b.
-    #[arg(long, default_value_t = 0.75)]
-    b: f64,
-    /// Rankings are cut at this depth; metrics and RBO use it.
-    #[arg(long, default_value_t = 10)]
-    top_k: usize,
-    /// RBO persistence p, between 0 and 1.
-    #[arg(long, default_value_t = metrics::DEFAULT_RBO_P)]
-    rbo_p: f64,
     /// Changed queries shown in text output (JSON lists all).
     #[arg(long, default_value_t = 20)]
     limit: usize,
@@ -104,18 +52,14 @@ pub struct Args {
     /// Write base.run and head.run (TREC run format) into this directory.
     #[arg(long, value_name = "DIR")]
     runs: Option<PathBuf>,
-    /// Where surface indexes are cached.
-    #[arg(long, value_name = "DIR", default_value = ".lexdelta-cache")]
-    cache: PathBuf,
-    /// Build the index in memory and store nothing.
-    #[arg(long)]
-    no_cache: bool,
     /// Output format.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
     /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
     #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
     color: ColorChoice,
+    #[command(flatten)]
+    pub sample: SampleArgs,
 }
 
 #[derive(Clone, Copy, Debug, clap::ValueEnum)]
@@ -124,131 +68,17 @@ enum Format {
     Json,
 }
 
-/// A progress bar on stderr, drawn only on a terminal.
-struct Bar(ProgressBar);
-
-impl Progress for Bar {
-    fn begin(&self, total: u64, what: &str) {
-        self.0.set_length(total);
-        self.0.set_message(what.to_string());
-    }
-    fn advance(&self, n: u64) {
-        self.0.inc(n);
-    }
-    fn finish(&self) {
-        self.0.finish_and_clear();
-    }
-}
-
-fn bar() -> Bar {
-    let target = if std::io::stderr().is_terminal() {
-        ProgressDrawTarget::stderr()
-    } else {
-        ProgressDrawTarget::hidden()
-    };
-    let bar = ProgressBar::with_draw_target(Some(0), target);
-    if let Ok(style) =
-        ProgressStyle::with_template("{msg} {wide_bar} {pos}/{len} documents ({eta})")
-    {
-        bar.set_style(style);
-    }
-    Bar(bar)
-}
-
-fn parse_sample(text: &str) -> Result<Sample, CliError> {
-    let bad = || {
-        CliError(
-            format!("--sample {text:?}: give a count (1000) or a fraction (0.1)"),
-            false,
-        )
-    };
-    if let Ok(n) = text.parse::<usize>() {
-        return Ok(Sample::Count(n));
-    }
-    match text.parse::<f64>() {
-        Ok(f) if f > 0.0 && f <= 1.0 => Ok(Sample::Fraction(f)),
-        _ => Err(bad()),
-    }
-}
-
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
-    let mode: MatchMode = args
-        .mode
-        .parse()
-        .map_err(|e| CliError(format!("--match: {e}"), false))?;
-    if !(args.rbo_p > 0.0 && args.rbo_p < 1.0) {
-        return Err(CliError(
-            format!("--rbo-p {}: must be between 0 and 1", args.rbo_p),
-            false,
-        ));
-    }
-    if args.top_k == 0 {
-        return Err(CliError("--top-k must be at least 1".into(), false));
-    }
-    if !(args.k1 >= 0.0 && (0.0..=1.0).contains(&args.b)) {
-        return Err(CliError(
-            "--k1 must be ≥ 0 and --b between 0 and 1".into(),
-            false,
-        ));
-    }
-    let fields = args
-        .fields
-        .iter()
-        .map(|f| FieldSpec::parse(f).map_err(|e| CliError(format!("--field {f:?}: {e}"), false)))
-        .collect::<Result<Vec<_>, _>>()?;
-    let doc_options = DocOptions {
-        id_field: args.id_field.clone(),
-        title_field: args.title_field.clone(),
-        fields,
-        sample: args.sample.as_deref().map(parse_sample).transpose()?,
-        seed: args.seed,
-    };
     let base = Arc::new(Analyzer::load(&args.base)?);
     let head = Arc::new(Analyzer::load(&args.head)?);
-    let corpus = read_documents(&args.corpus, &doc_options)?;
-    let log = read_queries(&args.queries)?;
-    let judged = match &args.judgments {
-        None => None,
-        Some(path) if path.extension().is_some_and(|e| e == "csv") => {
-            let (judgments, texts) = metrics::read_csv_judgments(path)?;
-            Some(JudgedSet { judgments, texts })
-        }
-        Some(path) => {
-            let Some(texts_path) = &args.judged_queries else {
-                return Err(CliError(
-                    format!(
-                        "{}: TREC qrels name queries by id; pass --judged-queries with each id's text",
-                        path.display()
-                    ),
-                    false,
-                ));
-            };
-            Some(JudgedSet {
-                judgments: metrics::read_trec_qrels(path)?,
-                texts: metrics::read_queries(texts_path)?,
-            })
-        }
-    };
-    let options = PreviewOptions {
-        scoring: Scoring {
-            ranking: args.ranking,
-            k1: args.k1,
-            b: args.b,
-            mode,
-        },
-        top_k: args.top_k,
-        rbo_p: args.rbo_p,
-        docs_shown: args.docs.max(1),
-        cache_dir: (!args.no_cache).then(|| args.cache.clone()),
-        want_runs: args.runs.is_some(),
-        test: RandomizationTest::default(),
-    };
+    let loaded = args.sample.load(args.docs, args.runs.is_some())?;
+    let options = loaded.options;
     let input = PreviewInput {
         base,
         head,
-        corpus: &corpus,
-        queries: &log,
-        judged,
+        corpus: &loaded.corpus,
+        queries: &loaded.log,
+        judged: loaded.judged,
     };
     let outcome = preview::run(input, &options, &bar())?;
     if let (Some(dir), Some(runs)) = (&args.runs, &outcome.runs) {
