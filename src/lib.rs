@@ -49,12 +49,14 @@
 //!
 //! - [`rules`]: the rule-file format, loading with spans, diagnostics, git revisions.
 //! - [`analysis`]: the analyzer, one file per stage, the trace, the tantivy adapter.
+//! - [`lint`]: the term graph and one check per file: contradictions and hazards in rules.
 //! - [`import`]: published irregular-form lists (WordNet) as lemma overrides.
 //! - [`metrics`]: precision, recall, reciprocal rank, AP, nDCG, RBO, significance.
 
 pub mod analysis;
 pub mod atomic;
 pub mod import;
+pub mod lint;
 pub mod metrics;
 pub mod report;
 pub mod rules;

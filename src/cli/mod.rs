@@ -1,6 +1,7 @@
 //! Command-line interface: one file per command, each with its arguments and `run`.
 
 mod import;
+mod lint;
 mod trace;
 
 use std::io::Write;
@@ -26,6 +27,7 @@ pub struct Cli {
 enum Command {
     Trace(trace::Args),
     Import(import::Args),
+    Lint(lint::Args),
 }
 
 /// An error the CLI reports on stderr with exit code 2.
@@ -64,6 +66,7 @@ pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
     match cli.command {
         Command::Trace(args) => trace::run(args),
         Command::Import(args) => import::run(args),
+        Command::Lint(args) => lint::run(args),
     }
 }
 
