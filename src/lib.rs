@@ -50,6 +50,7 @@
 //! - [`rules`]: the rule-file format, loading with spans, diagnostics, git revisions.
 //! - [`analysis`]: the analyzer, one file per stage, the trace, the tantivy adapter.
 //! - [`corpus`]: documents and query logs.
+//! - [`lint`]: the term graph and one check per file: contradictions and hazards in rules.
 //! - [`import`]: published irregular-form lists (WordNet) as lemma overrides.
 //! - [`metrics`]: precision, recall, reciprocal rank, AP, nDCG, RBO, significance.
 
@@ -59,6 +60,7 @@ pub mod audit;
 pub mod corpus;
 pub mod import;
 pub mod index;
+pub mod lint;
 pub mod metrics;
 pub mod preview;
 pub mod report;

@@ -5,6 +5,7 @@ mod import;
 mod preview;
 mod sample;
 mod stemcheck;
+mod lint;
 mod trace;
 
 use std::io::Write;
@@ -33,6 +34,7 @@ enum Command {
     Preview(Box<preview::Args>),
     Collisions(collisions::Args),
     Stemcheck(stemcheck::Args),
+    Lint(lint::Args),
 }
 
 /// An error the CLI reports on stderr with exit code 2.
@@ -74,6 +76,7 @@ pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
         Command::Preview(args) => preview::run(*args),
         Command::Collisions(args) => collisions::run(args),
         Command::Stemcheck(args) => stemcheck::run(args),
+        Command::Lint(args) => lint::run(args),
     }
 }
 

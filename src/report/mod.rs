@@ -4,10 +4,14 @@
 pub mod collisions_csv;
 pub mod collisions_json;
 pub mod collisions_text;
+pub mod lint_dot;
+pub mod lint_json;
+pub mod lint_sarif;
+pub mod lint_text;
+pub mod preview_json;
+pub mod preview_text;
 pub mod stemcheck_text;
 pub mod style;
 pub mod trace_text;
 
 pub use style::{ColorChoice, Style};
-pub mod preview_json;
-pub mod preview_text;

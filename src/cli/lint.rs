@@ -1,0 +1,271 @@
+//! `lexdelta lint`: contradictions and hazards in a ruleset, before anyone runs it.
+
+use std::fs::File;
+use std::io::{BufRead, BufReader};
+use std::path::{Path, PathBuf};
+use std::process::ExitCode;
+
+use lexdelta::analysis::{Analyzer, SurfaceStage};
+use lexdelta::atomic::write_file;
+use lexdelta::lint::{LintConfig, LintInput, Vocabulary, checks, lint};
+use lexdelta::report::{ColorChoice, Style, lint_dot, lint_json, lint_sarif, lint_text};
+use lexdelta::rules::{self, Level};
+use lexdelta::severity::Severity;
+
+use super::{CliError, print};
+
+const AFTER_HELP: &str = "\
+Examples:
+  Lint the live ruleset (./rules):
+    lexdelta lint
+  Judge a proposed change against real text (needed by stem-side-effect, dead-rule and
+  exempt-pattern-coverage):
+    lexdelta lint --rules demo-corpus/proposed \\
+      --corpus demo-corpus/documents.jsonl --queries demo-corpus/queries.jsonl
+  Check that every changed file bumped its revision:
+    lexdelta lint --rules demo-corpus/proposed --base rules
+  Output for code review tools, or scripts:
+    lexdelta lint --format sarif > lint.sarif
+    lexdelta lint --format json | jq '.counts'
+  Draw the groups that have findings:
+    lexdelta lint --graph groups.dot && dot -Tsvg groups.dot > groups.svg
+  Be stricter or quieter for one run:
+    lexdelta lint --fail-on warning --level dead-rule=off --level set-bridge=error
+  Learn about the checks:
+    lexdelta lint --list-checks
+    lexdelta lint --explain stem-side-effect
+
+Levels: a check starts at its default severity; the ruleset's `lint.checks` changes it,
+then --level, then a rule's own `lint:` override (which carries a reason) for findings
+on that rule. `off` silences; silenced findings are counted, not shown.
+
+Exit codes: 0 no finding at or above --fail-on, 1 some, 2 bad input.";
+
+/// Check a ruleset for contradictions and hazards: one-way cycles, bridged sets, lemma
+/// chains, and rule terms that also fire for unrelated words.
+#[derive(Debug, clap::Args)]
+#[command(after_help = AFTER_HELP)]
+pub struct Args {
+    /// The ruleset directory.
+    #[arg(long, value_name = "DIR", default_value = "rules")]
+    rules: PathBuf,
+    /// Documents as JSON Lines with `title` and `body` fields: their surface forms and
+    /// document frequencies form the vocabulary.
+    #[arg(long, value_name = "FILE")]
+    corpus: Option<PathBuf>,
+    /// A query log as JSON Lines `{"query": ..., "count": ...}`: adds search traffic.
+    #[arg(long, value_name = "FILE")]
+    queries: Option<PathBuf>,
+    /// The ruleset before the change, for the revision check.
+    #[arg(long, value_name = "DIR")]
+    base: Option<PathBuf>,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    format: Format,
+    /// Also write the term-graph groups that have findings as DOT (replaced if it exists).
+    #[arg(long, value_name = "FILE")]
+    graph: Option<PathBuf>,
+    /// Exit 1 when a finding is at this severity or above.
+    #[arg(long, value_enum, value_name = "SEVERITY", default_value_t = FailOn::Error)]
+    fail_on: FailOn,
+    /// Set a check's level for this run: off, info, warning or error (repeatable).
+    #[arg(long = "level", value_name = "NAME=LEVEL", value_parser = parse_level)]
+    levels: Vec<(String, Level)>,
+    /// Explain one check: what it finds, why it matters, an example, the usual fix.
+    #[arg(long, value_name = "NAME")]
+    explain: Option<String>,
+    /// List every check with its default severity.
+    #[arg(long)]
+    list_checks: bool,
+    /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
+    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
+    color: ColorChoice,
+}
+
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum Format {
+    Text,
+    Json,
+    Sarif,
+}
+
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum FailOn {
+    Error,
+    Warning,
+    Info,
+}
+
+impl FailOn {
+    fn severity(self) -> Severity {
+        match self {
+            FailOn::Error => Severity::Error,
+            FailOn::Warning => Severity::Warning,
+            FailOn::Info => Severity::Info,
+        }
+    }
+}
+
+/// `NAME=LEVEL`, with the name checked against the checks lint has.
+fn parse_level(raw: &str) -> Result<(String, Level), String> {
+    let (name, level) = raw
+        .split_once('=')
+        .ok_or_else(|| format!("expected NAME=LEVEL, e.g. set-bridge=error, found {raw:?}"))?;
+    let name = name.trim();
+    if checks::find(name).is_none() {
+        return Err(match checks::closest(name) {
+            Some(s) => format!("there is no check named {name:?}; did you mean {s:?}?"),
+            None => format!("there is no check named {name:?}; --list-checks lists them"),
+        });
+    }
+    let level = match level.trim() {
+        "off" => Level::Off,
+        "info" => Level::Info,
+        "warning" => Level::Warning,
+        "error" => Level::Error,
+        other => {
+            return Err(format!(
+                "unknown level {other:?}; use off, info, warning or error"
+            ));
+        }
+    };
+    Ok((name.to_string(), level))
+}
+
+pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    let style = Style::for_stdout(args.color);
+    if args.list_checks {
+        print(&lint_text::render_check_list(style))?;
+        return Ok(ExitCode::SUCCESS);
+    }
+    if let Some(name) = &args.explain {
+        let info = checks::find(name).ok_or_else(|| {
+            CliError::from(lexdelta::lint::UnknownCheck {
+                name: name.clone(),
+                suggestion: checks::closest(name),
+            })
+        })?;
+        print(&lint_text::render_explanation(info, style))?;
+        return Ok(ExitCode::SUCCESS);
+    }
+
+    let sources = rules::read_sources(&args.rules)?;
+    let ruleset = rules::load_sources(&args.rules.display().to_string(), sources.clone())?;
+    let analyzer = Analyzer::new(ruleset)?;
+    let base = args.base.as_deref().map(rules::load_dir).transpose()?;
+    let vocabulary = read_vocabulary(
+        analyzer.surface(),
+        args.corpus.as_deref(),
+        args.queries.as_deref(),
+    )?;
+    let config = LintConfig::with_levels(args.levels.iter().map(|(n, l)| (n.as_str(), *l)))?;
+    let report = lint(
+        &analyzer,
+        &LintInput {
+            vocabulary: vocabulary.as_ref(),
+            base: base.as_ref(),
+            config: &config,
+        },
+    );
+
+    if let Some(path) = &args.graph {
+        write_file(path, lint_dot::render(&report).as_bytes(), true)?;
+    }
+    let rendered = match args.format {
+        Format::Text => lint_text::render(&report, &sources, style),
+        Format::Json => lint_json::render(&report)?,
+        Format::Sarif => lint_sarif::render(&report, &std::env::current_dir()?)?,
+    };
+    print(&rendered)?;
+    Ok(if report.has_at_least(args.fail_on.severity()) {
+        ExitCode::from(1)
+    } else {
+        ExitCode::SUCCESS
+    })
+}
+
+/// A corpus or query-log line that could not be read.
+#[derive(Debug, thiserror::Error)]
+enum InputError {
+    #[error("cannot read {path}: {source}")]
+    Io {
+        path: String,
+        #[source]
+        source: std::io::Error,
+    },
+    #[error("{path}:{line}: {message}")]
+    Line {
+        path: String,
+        line: usize,
+        message: String,
+    },
+}
+
+#[derive(serde::Deserialize)]
+struct DocumentLine {
+    #[serde(default)]
+    title: String,
+    #[serde(default)]
+    body: String,
+}
+
+#[derive(serde::Deserialize)]
+struct QueryLine {
+    query: String,
+    #[serde(default = "one")]
+    count: u64,
+}
+
+fn one() -> u64 {
+    1
+}
+
+/// The vocabulary of a corpus (title and body of each document) and a query log, or `None`
+/// when neither is given. Kept small and separate so the corpus readers can replace it.
+fn read_vocabulary(
+    surface: &SurfaceStage,
+    corpus: Option<&Path>,
+    queries: Option<&Path>,
+) -> Result<Option<Vocabulary>, InputError> {
+    if corpus.is_none() && queries.is_none() {
+        return Ok(None);
+    }
+    let mut vocabulary = Vocabulary::new();
+    if let Some(path) = corpus {
+        for_each_line(path, |line: DocumentLine| {
+            vocabulary.add_document(surface, &format!("{}\n\n{}", line.title, line.body));
+        })?;
+    }
+    if let Some(path) = queries {
+        for_each_line(path, |line: QueryLine| {
+            vocabulary.add_query(surface, &line.query, line.count);
+        })?;
+    }
+    Ok(Some(vocabulary))
+}
+
+/// Reads JSON Lines one object at a time (blank lines skipped), with file:line on errors.
+fn for_each_line<T: serde::de::DeserializeOwned>(
+    path: &Path,
+    mut f: impl FnMut(T),
+) -> Result<(), InputError> {
+    let shown = path.display().to_string();
+    let io = |source| InputError::Io {
+        path: shown.clone(),
+        source,
+    };
+    let reader = BufReader::new(File::open(path).map_err(io)?);
+    for (n, line) in reader.lines().enumerate() {
+        let line = line.map_err(io)?;
+        if line.trim().is_empty() {
+            continue;
+        }
+        let value = serde_json::from_str(&line).map_err(|e| InputError::Line {
+            path: shown.clone(),
+            line: n + 1,
+            message: e.to_string(),
+        })?;
+        f(value);
+    }
+    Ok(())
+}
