@@ -55,7 +55,7 @@ fn slow(
 /// Fast: the surface index seen through this analyzer's conflation groups.
 fn fast(analyzer: &Analyzer, corpus: &Corpus, queries: &[String], s: &Scoring) -> Vec<Vec<Hit>> {
     let index = build_surface_index(corpus, analyzer.surface(), None, &NoProgress).unwrap();
-    let postings = IndexPostings::open(&index, corpus.fields.len()).unwrap();
+    let postings = IndexPostings::open_surface(&index, corpus.fields.len()).unwrap();
     let forms = SurfaceForms::read(&postings).unwrap();
     let keys = ConflatedKeys::new(&postings, &forms, analyzer).unwrap();
     run_all(&keys, analyzer, corpus, queries, s)

@@ -5,7 +5,7 @@ use std::path::Path;
 use std::sync::Arc;
 
 use tantivy::schema::{FAST, Field, IndexRecordOption, Schema, TextFieldIndexing, TextOptions};
-use tantivy::tokenizer::{PreTokenizedString, Token};
+use tantivy::tokenizer::{Token, TokenStream, Tokenizer};
 use tantivy::{Index, TantivyDocument};
 
 use super::{IndexError, Progress};
@@ -48,40 +48,79 @@ fn create(dir: Option<&Path>, schema: Schema) -> Result<Index, IndexError> {
     })
 }
 
-/// Indexes the surface forms of every document (tokens made by `surface`, handed to tantivy
-/// pre-tokenized so each text is tokenized once). `dir: None` builds in memory.
+/// The surface stage as a tantivy tokenizer (what [`KeyTokenizer::surface`] emits, without
+/// needing a compiled ruleset).
+#[derive(Clone)]
+struct SurfaceTokenizer {
+    surface: SurfaceStage,
+    tokens: Vec<Token>,
+}
+
+struct SurfaceStream<'a> {
+    tokens: &'a mut Vec<Token>,
+    next: usize,
+}
+
+impl Tokenizer for SurfaceTokenizer {
+    type TokenStream<'a> = SurfaceStream<'a>;
+
+    fn token_stream<'a>(&'a mut self, text: &'a str) -> SurfaceStream<'a> {
+        self.tokens.clear();
+        let tokens = &mut self.tokens;
+        self.surface.for_each(text, |span, form| {
+            tokens.push(Token {
+                offset_from: span.from,
+                offset_to: span.to,
+                position: span.position as usize,
+                text: form.into_owned(),
+                position_length: 1,
+            })
+        });
+        SurfaceStream {
+            tokens: &mut self.tokens,
+            next: 0,
+        }
+    }
+}
+
+impl TokenStream for SurfaceStream<'_> {
+    fn advance(&mut self) -> bool {
+        self.next += 1;
+        self.next <= self.tokens.len()
+    }
+    fn token(&self) -> &Token {
+        &self.tokens[self.next - 1]
+    }
+    fn token_mut(&mut self) -> &mut Token {
+        &mut self.tokens[self.next - 1]
+    }
+}
+
+/// The tokenizer name surface indexes register.
+pub(crate) const SURFACE_TOKENIZER: &str = "lexdelta-surface";
+
+/// Indexes the surface forms of every document, tokenized by tantivy's indexing threads
+/// with the surface stage. Document lengths are not stored in the index: they are counted
+/// from the postings afterwards ([`IndexPostings::surface_lengths`]). `dir: None` builds in
+/// memory.
+///
+/// [`IndexPostings::surface_lengths`]: super::IndexPostings::surface_lengths
 pub fn build_surface_index(
     corpus: &Corpus,
     surface: &SurfaceStage,
     dir: Option<&Path>,
     progress: &dyn Progress,
 ) -> Result<Index, IndexError> {
-    let (schema, fields) = schema(corpus.fields.len(), "default");
+    let (schema, fields) = schema(corpus.fields.len(), SURFACE_TOKENIZER);
     let index = create(dir, schema)?;
+    register_surface(&index, surface);
     let mut writer = index.writer::<TantivyDocument>(WRITER_MEMORY)?;
     progress.begin(corpus.len() as u64, "indexing surface forms");
     for (ord, document) in corpus.documents.iter().enumerate() {
         let mut doc = TantivyDocument::default();
         doc.add_u64(fields.ord, ord as u64);
         for (i, text) in document.texts.iter().enumerate() {
-            let mut tokens = Vec::new();
-            surface.for_each(text, |span, form| {
-                tokens.push(Token {
-                    offset_from: span.from,
-                    offset_to: span.to,
-                    position: span.position as usize,
-                    text: form.into_owned(),
-                    position_length: 1,
-                })
-            });
-            doc.add_u64(fields.lens[i], tokens.len() as u64);
-            doc.add_pre_tokenized_text(
-                fields.texts[i],
-                PreTokenizedString {
-                    text: String::new(),
-                    tokens,
-                },
-            );
+            doc.add_text(fields.texts[i], text);
         }
         writer.add_document(doc)?;
         if ord % 1024 == 1023 {
@@ -92,6 +131,17 @@ pub fn build_surface_index(
     writer.wait_merging_threads()?;
     progress.finish();
     Ok(index)
+}
+
+/// Registers the surface tokenizer on an opened surface index.
+pub fn register_surface(index: &Index, surface: &SurfaceStage) {
+    index.tokenizers().register(
+        SURFACE_TOKENIZER,
+        SurfaceTokenizer {
+            surface: surface.clone(),
+            tokens: Vec::new(),
+        },
+    );
 }
 
 /// Indexes the keys of every document with [`KeyTokenizer::keys`]: what an index built

@@ -17,13 +17,14 @@ use serde::Serialize;
 use tantivy::Index;
 
 use super::build::build_surface_index;
-use super::{IndexError, Progress};
+use super::{IndexError, IndexPostings, Progress};
 use crate::analysis::SurfaceStage;
 use crate::corpus::Corpus;
 
 /// Bumped whenever the layout of a cached index changes.
-pub const FORMAT_VERSION: u32 = 1;
+pub const FORMAT_VERSION: u32 = 2;
 const MARKER: &str = "lexdelta-complete";
+const LENGTHS: &str = "lexdelta-lengths.bin";
 
 /// Whether the index came from the cache.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize)]
@@ -64,14 +65,17 @@ pub fn open_or_build(
     surface: &SurfaceStage,
     cache_dir: &Path,
     progress: &dyn Progress,
-) -> Result<(Index, CacheStatus, PathBuf), IndexError> {
+) -> Result<(IndexPostings, CacheStatus, PathBuf), IndexError> {
+    let n = corpus.fields.len();
     let target = cache_dir.join(format!("surface-{}", cache_key(corpus, surface)));
-    if target.join(MARKER).is_file() {
-        return Ok((Index::open_in_dir(&target)?, CacheStatus::Reused, target));
+    if target.join(MARKER).is_file()
+        && let Ok(found) = open_cached(&target, n)
+    {
+        return Ok((found, CacheStatus::Reused, target));
     }
     fs::create_dir_all(cache_dir).map_err(io(cache_dir))?;
     if target.exists() {
-        // Not renamed by a completed build of ours: never trusted.
+        // Not a complete build: never trusted.
         fs::remove_dir_all(&target).map_err(io(&target))?;
     }
     let tmp = tempfile::Builder::new()
@@ -79,20 +83,53 @@ pub fn open_or_build(
         .tempdir_in(cache_dir)
         .map_err(io(cache_dir))?;
     let index = build_surface_index(corpus, surface, Some(tmp.path()), progress)?;
+    let mut postings = IndexPostings::open(&index, n)?;
+    let lengths = postings.surface_lengths()?;
+    let bytes: Vec<u8> = lengths
+        .iter()
+        .flatten()
+        .flat_map(|l| l.to_le_bytes())
+        .collect();
+    fs::write(tmp.path().join(LENGTHS), bytes).map_err(io(tmp.path()))?;
+    postings.set_lengths(lengths);
     drop(index);
     fs::write(tmp.path().join(MARKER), format!("{FORMAT_VERSION}\n")).map_err(io(tmp.path()))?;
     match fs::rename(tmp.path(), &target) {
         Ok(()) => {
             // The directory moved; nothing is left for the guard to remove.
             let _ = tmp.keep();
-            Ok((Index::open_in_dir(&target)?, CacheStatus::Built, target))
+            Ok((open_cached(&target, n)?, CacheStatus::Built, target))
         }
         Err(_) if target.join(MARKER).is_file() => {
             // Another run finished first: use its index, ours is removed with `tmp`.
-            Ok((Index::open_in_dir(&target)?, CacheStatus::Reused, target))
+            Ok((open_cached(&target, n)?, CacheStatus::Reused, target))
         }
         Err(e) => Err(io(&target)(e)),
     }
+}
+
+fn open_cached(dir: &Path, num_fields: usize) -> Result<IndexPostings, IndexError> {
+    let index = Index::open_in_dir(dir)?;
+    let mut postings = IndexPostings::open(&index, num_fields)?;
+    let bytes = fs::read(dir.join(LENGTHS)).map_err(io(dir))?;
+    let docs = postings.num_docs() as usize;
+    if bytes.len() != docs * num_fields * 4 {
+        return Err(io(dir)(std::io::Error::other(
+            "document lengths do not match the index",
+        )));
+    }
+    let values: Vec<u32> = bytes
+        .chunks_exact(4)
+        .map(|c| u32::from_le_bytes([c[0], c[1], c[2], c[3]]))
+        .collect();
+    postings.set_lengths(
+        values
+            .chunks(docs.max(1))
+            .map(<[u32]>::to_vec)
+            .take(num_fields)
+            .collect(),
+    );
+    Ok(postings)
 }
 
 #[cfg(test)]

@@ -91,7 +91,7 @@ const CACHE_BUDGET: usize = 64 << 20;
 
 impl IndexPostings {
     pub fn open(index: &Index, num_fields: usize) -> Result<Self, IndexError> {
-        let (_, fields) = schema(num_fields, "default");
+        let (_, fields) = schema(num_fields, "unused");
         let reader = index.reader()?;
         let searcher = reader.searcher();
         let num_docs = searcher.num_docs() as u32;
@@ -124,6 +124,62 @@ impl IndexPostings {
             cache: RefCell::default(),
             cached_positions: RefCell::new(0),
         })
+    }
+
+    /// Opens a surface index, counting document lengths from its postings.
+    pub fn open_surface(index: &Index, num_fields: usize) -> Result<Self, IndexError> {
+        let mut postings = IndexPostings::open(index, num_fields)?;
+        let lengths = postings.surface_lengths()?;
+        postings.set_lengths(lengths);
+        Ok(postings)
+    }
+
+    /// Replaces the stored lengths with these (per field, per corpus ord).
+    pub fn set_lengths(&mut self, lengths: Vec<Vec<u32>>) {
+        self.lengths = lengths;
+    }
+
+    /// Counts every document's tokens per field from the postings (term frequencies
+    /// summed): the exact lengths of a surface index, which does not store them.
+    pub fn surface_lengths(&self) -> Result<Vec<Vec<u32>>, IndexError> {
+        let mut out = vec![vec![0u32; self.num_docs as usize]; self.num_fields()];
+        for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
+            for (f, lengths) in out.iter_mut().enumerate() {
+                let inverted = segment.inverted_index(self.fields.texts[f])?;
+                let mut stream = inverted.terms().stream()?;
+                while stream.advance() {
+                    let mut postings = inverted.read_postings_from_terminfo(
+                        stream.value(),
+                        IndexRecordOption::WithFreqs,
+                    )?;
+                    let mut doc = postings.doc();
+                    while doc != TERMINATED {
+                        lengths[self.ords[s][doc as usize] as usize] += postings.term_freq();
+                        doc = postings.advance();
+                    }
+                }
+            }
+        }
+        Ok(out)
+    }
+
+    /// The term frequencies of `term` in `field`: `(corpus ord, tf)`, without positions.
+    pub fn frequencies(&self, field: usize, term: &str) -> Result<Vec<(u32, u32)>, IndexError> {
+        let term = Term::from_field_text(self.fields.texts[field], term);
+        let mut out = Vec::new();
+        for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
+            let inverted = segment.inverted_index(self.fields.texts[field])?;
+            if let Some(mut postings) =
+                inverted.read_postings(&term, IndexRecordOption::WithFreqs)?
+            {
+                let mut doc = postings.doc();
+                while doc != TERMINATED {
+                    out.push((self.ords[s][doc as usize], postings.term_freq()));
+                    doc = postings.advance();
+                }
+            }
+        }
+        Ok(out)
     }
 
     pub fn num_docs(&self) -> u32 {

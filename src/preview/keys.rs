@@ -66,10 +66,9 @@ impl<'a> ConflatedKeys<'a> {
                 match analyzer.key(form) {
                     Some(key) => groups.entry(key.into_owned()).or_default().push(i as u32),
                     None => {
-                        let stop = index.postings(field, form)?;
-                        for (doc, tf) in stop.docs.iter().zip(&stop.tfs) {
-                            let slot = &mut len[*doc as usize];
-                            *slot = slot.saturating_sub(*tf);
+                        for (doc, tf) in index.frequencies(field, form)? {
+                            let slot = &mut len[doc as usize];
+                            *slot = slot.saturating_sub(tf);
                         }
                     }
                 }

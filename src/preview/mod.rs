@@ -198,22 +198,26 @@ fn open(
     options: &PreviewOptions,
     progress: &dyn Progress,
 ) -> Result<Opened, IndexError> {
-    let (idx, status) = match &options.cache_dir {
+    let (postings, status) = match &options.cache_dir {
         Some(dir) => {
-            let (idx, status, _) = index::open_or_build(corpus, analyzer.surface(), dir, progress)?;
+            let (postings, status, _) =
+                index::open_or_build(corpus, analyzer.surface(), dir, progress)?;
             let s = match status {
                 index::CacheStatus::Built => "built",
                 index::CacheStatus::Reused => "reused",
             };
-            (idx, s)
+            (postings, s)
         }
-        None => (
-            index::build_surface_index(corpus, analyzer.surface(), None, progress)?,
-            "memory",
-        ),
+        None => {
+            let idx = index::build_surface_index(corpus, analyzer.surface(), None, progress)?;
+            (
+                IndexPostings::open_surface(&idx, corpus.fields.len())?,
+                "memory",
+            )
+        }
     };
     Ok(Opened {
-        postings: IndexPostings::open(&idx, corpus.fields.len())?,
+        postings,
         status: status.to_string(),
     })
 }
