@@ -507,7 +507,9 @@ fn the_graph_export_is_dot_of_the_flagged_groups() {
 
 /// Runs the schema check script; any failure to run it fails the test.
 fn validate_with_schema(instance: &Path) -> std::process::Output {
-    Command::new("python3")
+    // tests/run.sh points LEXDELTA_PYTHON at the venv holding the pinned validator.
+    let python = std::env::var("LEXDELTA_PYTHON").unwrap_or_else(|_| "python3".into());
+    Command::new(python)
         .arg("tests/data/check_json_schema.py")
         .arg(SCHEMA)
         .arg(SCHEMA_SHA256)
