@@ -2,10 +2,11 @@
 
 mod collisions;
 mod import;
+mod lint;
 mod preview;
+mod review;
 mod sample;
 mod stemcheck;
-mod lint;
 mod trace;
 
 use std::io::Write;
@@ -32,6 +33,7 @@ enum Command {
     Trace(trace::Args),
     Import(import::Args),
     Preview(Box<preview::Args>),
+    Review(Box<review::Args>),
     Collisions(collisions::Args),
     Stemcheck(stemcheck::Args),
     Lint(lint::Args),
@@ -74,6 +76,7 @@ pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
         Command::Trace(args) => trace::run(args),
         Command::Import(args) => import::run(args),
         Command::Preview(args) => preview::run(*args),
+        Command::Review(args) => review::run(*args),
         Command::Collisions(args) => collisions::run(args),
         Command::Stemcheck(args) => stemcheck::run(args),
         Command::Lint(args) => lint::run(args),

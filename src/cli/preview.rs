@@ -10,7 +10,7 @@ use lexdelta::preview::{self, PreviewInput};
 use lexdelta::report::preview_text::Limits;
 use lexdelta::report::{ColorChoice, Style, preview_json, preview_text};
 
-use super::sample::{SampleArgs, bar};
+use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -38,11 +38,11 @@ Exit codes:
 #[command(after_help = AFTER_HELP)]
 pub struct Args {
     /// The ruleset in use (a directory of rule files).
-    #[arg(long, value_name = "DIR")]
-    base: PathBuf,
+    #[arg(long, value_name = "DIR", required_unless_present = "demo")]
+    base: Option<PathBuf>,
     /// The changed ruleset.
-    #[arg(long, value_name = "DIR")]
-    head: PathBuf,
+    #[arg(long, value_name = "DIR", required_unless_present = "demo")]
+    head: Option<PathBuf>,
     /// Changed queries shown in text output (JSON lists all).
     #[arg(long, default_value_t = 20)]
     limit: usize,
@@ -69,8 +69,9 @@ enum Format {
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
-    let base = Arc::new(Analyzer::load(&args.base)?);
-    let head = Arc::new(Analyzer::load(&args.head)?);
+    let dir = |given: &Option<PathBuf>, demo: &str| given.clone().unwrap_or_else(|| demo.into());
+    let base = Arc::new(Analyzer::load(&dir(&args.base, DEMO_BASE))?);
+    let head = Arc::new(Analyzer::load(&dir(&args.head, DEMO_HEAD))?);
     let loaded = args.sample.load(args.docs, args.runs.is_some())?;
     let options = loaded.options;
     let input = PreviewInput {

@@ -16,12 +16,16 @@ use super::CliError;
 
 #[derive(Debug, Clone, clap::Args)]
 pub struct SampleArgs {
+    /// Use the bundled demo: its documents, query log and judgments (and, where the
+    /// command takes rulesets, `rules` as base and `demo-corpus/proposed` as head).
+    #[arg(long)]
+    pub demo: bool,
     /// Documents: JSON Lines, CSV with a header, or a directory of .txt/.md files.
-    #[arg(long, value_name = "FILE")]
-    pub corpus: PathBuf,
+    #[arg(long, value_name = "FILE", required_unless_present = "demo")]
+    pub corpus: Option<PathBuf>,
     /// Queries: one per line, TSV `query<TAB>count`, or a JSON Lines query log (.jsonl).
-    #[arg(long, value_name = "FILE")]
-    pub queries: PathBuf,
+    #[arg(long, value_name = "FILE", required_unless_present = "demo")]
+    pub queries: Option<PathBuf>,
     /// Relevance judgments: TREC qrels (with --judged-queries) or CSV
     /// (`query_id,query,doc_id,relevance`).
     #[arg(long, value_name = "FILE")]
@@ -70,6 +74,13 @@ pub struct SampleArgs {
     pub no_cache: bool,
 }
 
+pub const DEMO_BASE: &str = "rules";
+pub const DEMO_HEAD: &str = "demo-corpus/proposed";
+const DEMO_CORPUS: &str = "demo-corpus/documents.jsonl";
+const DEMO_QUERIES: &str = "demo-corpus/queries.jsonl";
+const DEMO_JUDGMENTS: &str = "demo-corpus/judgments.qrels";
+const DEMO_JUDGED_QUERIES: &str = "demo-corpus/judged-queries.tsv";
+
 /// Everything a preview needs besides the two rulesets.
 pub struct Loaded {
     pub corpus: Corpus,
@@ -81,6 +92,12 @@ pub struct Loaded {
 impl SampleArgs {
     /// Validates the settings and reads the corpus, queries and judgments.
     pub fn load(&self, docs_shown: usize, want_runs: bool) -> Result<Loaded, CliError> {
+        if self.demo && self.judgments.is_none() {
+            let mut with_demo = self.clone();
+            with_demo.judgments = Some(DEMO_JUDGMENTS.into());
+            with_demo.judged_queries = Some(DEMO_JUDGED_QUERIES.into());
+            return with_demo.load(docs_shown, want_runs);
+        }
         let mode: MatchMode = self
             .mode
             .parse()
@@ -114,8 +131,12 @@ impl SampleArgs {
             sample: self.sample.as_deref().map(parse_sample).transpose()?,
             seed: self.seed,
         };
-        let corpus = read_documents(&self.corpus, &doc_options)?;
-        let log = read_queries(&self.queries)?;
+        let (corpus_path, queries_path) = match (&self.corpus, &self.queries) {
+            (Some(c), Some(q)) => (c.clone(), q.clone()),
+            _ => (PathBuf::from(DEMO_CORPUS), PathBuf::from(DEMO_QUERIES)),
+        };
+        let corpus = read_documents(&corpus_path, &doc_options)?;
+        let log = read_queries(&queries_path)?;
         let judged = match &self.judgments {
             None => None,
             Some(path) if path.extension().is_some_and(|e| e == "csv") => {

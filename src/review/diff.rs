@@ -36,6 +36,8 @@ pub struct RuleChange {
     /// The rule as written on each side, in one line.
     pub before: Option<String>,
     pub after: Option<String>,
+    /// For synonym rules: every term on the head side, in the order written.
+    pub members: Vec<String>,
     /// For sets: members added and removed.
     pub members_added: Vec<String>,
     pub members_removed: Vec<String>,
@@ -245,6 +247,9 @@ fn synonym_change(
         head: head.map(|r| r.meta.origin.clone()),
         before: base.map(describe_synonym),
         after: head.map(describe_synonym),
+        members: head
+            .map(|r| r.terms().iter().map(|t| t.text.clone()).collect())
+            .unwrap_or_default(),
         members_added: new.difference(&old).cloned().collect(),
         members_removed: old.difference(&new).cloned().collect(),
     }
@@ -283,6 +288,7 @@ fn diff_exemptions(base: &Ruleset, head: &Ruleset, out: &mut Vec<RuleChange>) {
             head: new.map(|e| e.1.clone()),
             before: old.map(|e| e.0.clone()),
             after: new.map(|e| e.0.clone()),
+            members: Vec::new(),
             members_added: Vec::new(),
             members_removed: Vec::new(),
         }
@@ -322,6 +328,7 @@ fn diff_lemmas(base: &[LemmaOverride], head: &[LemmaOverride], out: &mut Vec<Rul
         head: new.map(|e| e.1.clone()),
         before: old.map(|e| format!("{form} → {}", e.0)),
         after: new.map(|e| format!("{form} → {}", e.0)),
+        members: Vec::new(),
         members_added: Vec::new(),
         members_removed: Vec::new(),
     };

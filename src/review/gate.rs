@@ -18,6 +18,8 @@ pub struct GateLimits {
     pub max_lost_traffic_share: Option<f64>,
     /// Mean nDCG may not drop by more than this.
     pub max_ndcg_drop: Option<f64>,
+    /// No single judged query's nDCG may drop by more than this.
+    pub max_query_ndcg_drop: Option<f64>,
     /// No lint finding at or above this severity.
     pub fail_on_lint: Option<Severity>,
 }
@@ -28,6 +30,7 @@ impl GateLimits {
             max_emptied_searches: settings.max_emptied_searches,
             max_lost_traffic_share: settings.max_lost_traffic_share,
             max_ndcg_drop: settings.max_ndcg_drop,
+            max_query_ndcg_drop: settings.max_query_ndcg_drop,
             fail_on_lint: settings.fail_on_lint,
         }
     }
@@ -38,6 +41,7 @@ impl GateLimits {
             max_emptied_searches: other.max_emptied_searches.or(self.max_emptied_searches),
             max_lost_traffic_share: other.max_lost_traffic_share.or(self.max_lost_traffic_share),
             max_ndcg_drop: other.max_ndcg_drop.or(self.max_ndcg_drop),
+            max_query_ndcg_drop: other.max_query_ndcg_drop.or(self.max_query_ndcg_drop),
             fail_on_lint: other.fail_on_lint.or(self.fail_on_lint),
         }
     }
@@ -57,6 +61,8 @@ pub struct GateInput {
     pub total_searches: u64,
     /// Mean nDCG before and after, when judgments were given.
     pub ndcg: Option<(String, f64, f64)>,
+    /// Per judged query: (query, searches, nDCG before, after).
+    pub query_ndcg: Vec<(String, u64, f64, f64)>,
     /// Lint findings per severity.
     pub lint: Vec<(Severity, usize)>,
 }
@@ -119,6 +125,27 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
             });
         }
     }
+    if let Some(max) = limits.max_query_ndcg_drop {
+        let mut over: Vec<&(String, u64, f64, f64)> = input
+            .query_ndcg
+            .iter()
+            .filter(|(_, _, b, a)| b - a > max)
+            .collect();
+        over.sort_by(|x, y| {
+            (y.2 - y.3)
+                .total_cmp(&(x.2 - x.3))
+                .then_with(|| x.0.cmp(&y.0))
+        });
+        for (query, searches, before, after) in over {
+            breaches.push(Breach {
+                limit: "max_query_ndcg_drop",
+                reason: format!(
+                    "{query:?} ({searches} searches): nDCG drops by {:.4} ({before:.4} → {after:.4}); the limit is {max:.4}",
+                    before - after
+                ),
+            });
+        }
+    }
     if let Some(floor) = limits.fail_on_lint {
         let n: usize = input
             .lint
@@ -152,6 +179,7 @@ mod tests {
             lost_searches: 3000,
             total_searches: 90_000,
             ndcg: Some(("nDCG@10".into(), 0.66, 0.64)),
+            query_ndcg: vec![("access pass".into(), 120, 0.71, 0.11)],
             lint: vec![(Severity::Warning, 3)],
         }
     }
@@ -162,6 +190,7 @@ mod tests {
             max_emptied_searches: Some(5),
             max_lost_traffic_share: Some(0.02),
             max_ndcg_drop: Some(0.01),
+            max_query_ndcg_drop: Some(0.25),
             fail_on_lint: Some(Severity::Error),
         };
         let out = check(&limits, &input());
@@ -171,7 +200,8 @@ mod tests {
             [
                 "max_emptied_searches",
                 "max_lost_traffic_share",
-                "max_ndcg_drop"
+                "max_ndcg_drop",
+                "max_query_ndcg_drop"
             ]
         );
         assert!(

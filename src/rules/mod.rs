@@ -293,6 +293,8 @@ pub struct GateSettings {
     pub max_emptied_searches: Option<u64>,
     pub max_lost_traffic_share: Option<f64>,
     pub max_ndcg_drop: Option<f64>,
+    /// No single judged query's nDCG may drop by more than this.
+    pub max_query_ndcg_drop: Option<f64>,
     pub fail_on_lint: Option<Severity>,
     pub origin: Option<Origin>,
 }

@@ -46,6 +46,7 @@ const GATE_KEYS: &[&str] = &[
     "max_emptied_searches",
     "max_lost_traffic_share",
     "max_ndcg_drop",
+    "max_query_ndcg_drop",
     "fail_on_lint",
 ];
 
@@ -764,6 +765,9 @@ impl<'a> Walker<'a> {
         }
         if let Some(n) = get(entries, "max_ndcg_drop") {
             gate.max_ndcg_drop = self.share(n, "`max_ndcg_drop`");
+        }
+        if let Some(n) = get(entries, "max_query_ndcg_drop") {
+            gate.max_query_ndcg_drop = self.share(n, "`max_query_ndcg_drop`");
         }
         if let Some(n) = get(entries, "fail_on_lint") {
             gate.fail_on_lint = self.severity(n);

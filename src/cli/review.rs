@@ -1,0 +1,195 @@
+//! `lexdelta review`: a rule change reviewed like code, with a gate for CI.
+
+use std::path::{Path, PathBuf};
+use std::process::ExitCode;
+use std::sync::Arc;
+
+use lexdelta::analysis::Analyzer;
+use lexdelta::atomic::write_file;
+use lexdelta::lint::LintConfig;
+use lexdelta::report::preview_text::Limits;
+use lexdelta::report::{ColorChoice, Style, lint_sarif, review_json, review_markdown, review_text};
+use lexdelta::review::{self, GateLimits, ReviewInput};
+use lexdelta::rules::{self, Ruleset};
+use lexdelta::severity::Severity;
+
+use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
+use super::{CliError, print};
+
+const AFTER_HELP: &str = "\
+Examples:
+  lexdelta review --demo --html review.html
+      the bundled demo: live rules vs the proposed change, with judgments
+  lexdelta review --base origin/main --corpus sample.jsonl --queries log.jsonl \\
+      --markdown review.md --sarif lint.sarif
+      in a git repository: the `rules` directory at origin/main vs the working tree
+  lexdelta review --base v12 --head HEAD --rules search/rules ...
+  lexdelta review --base old-rules/ --head new-rules/ ...      two directories, no git
+
+BASE and HEAD are directories when such a directory exists, otherwise git revisions whose
+ruleset (the --rules directory) is read straight from git: no checkout, the working tree
+untouched. Gate limits come from the base ruleset's `gate:` section; the --max-* options
+override them.
+
+A preview on a sample is evidence, not proof: if you depend on recall (legal discovery,
+clinical or safety documents), validate against your own full collection.
+
+Exit codes:
+  0  the gate passed (or no limits are set)
+  1  a gate limit was breached (one line per breach on stderr)
+  2  bad input or usage";
+
+/// Compare the rules on a branch with the base: rule diff, lint, preview and a CI gate.
+#[derive(Debug, clap::Args)]
+#[command(after_help = AFTER_HELP)]
+pub struct Args {
+    /// The base: a ruleset directory or a git revision.
+    #[arg(long, value_name = "REV|DIR", required_unless_present = "demo")]
+    base: Option<String>,
+    /// The head: a ruleset directory or a git revision (default: the --rules directory in
+    /// the working tree).
+    #[arg(long, value_name = "REV|DIR")]
+    head: Option<String>,
+    /// The ruleset directory inside the repository, for git revisions.
+    #[arg(long, value_name = "DIR", default_value = "rules")]
+    rules: String,
+    /// Output on stdout.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    format: Format,
+    /// Also write the Markdown report (for a review comment) to FILE.
+    #[arg(long, value_name = "FILE")]
+    markdown: Option<PathBuf>,
+    /// Also write the self-contained HTML report to FILE.
+    #[arg(long, value_name = "FILE")]
+    html: Option<PathBuf>,
+    /// Also write lint's SARIF 2.1.0 log of the head to FILE.
+    #[arg(long, value_name = "FILE")]
+    sarif: Option<PathBuf>,
+    /// Gate: no emptied query may have more searches than N.
+    #[arg(long, value_name = "N")]
+    max_emptied_searches: Option<u64>,
+    /// Gate: at most this share (0–1) of searches may lose documents.
+    #[arg(long, value_name = "SHARE")]
+    max_lost_traffic_share: Option<f64>,
+    /// Gate: mean nDCG may drop by at most this much.
+    #[arg(long, value_name = "DROP")]
+    max_ndcg_drop: Option<f64>,
+    /// Gate: no judged query's nDCG may drop by more than this.
+    #[arg(long, value_name = "DROP")]
+    max_query_ndcg_drop: Option<f64>,
+    /// Gate: fail on lint findings at or above this severity.
+    #[arg(long, value_name = "SEVERITY", value_parser = parse_severity)]
+    fail_on_lint: Option<Severity>,
+    /// Affected queries listed in text and Markdown (JSON and HTML list all).
+    #[arg(long, default_value_t = 15)]
+    limit: usize,
+    /// Gained and lost documents listed per query.
+    #[arg(long, default_value_t = 5)]
+    docs: usize,
+    /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
+    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
+    color: ColorChoice,
+    #[command(flatten)]
+    sample: SampleArgs,
+}
+
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum Format {
+    Text,
+    Markdown,
+    Json,
+}
+
+fn parse_severity(text: &str) -> Result<Severity, String> {
+    Severity::from_name(text).ok_or_else(|| "use error, warning or info".to_string())
+}
+
+/// A directory if one exists at that path, otherwise a git revision of `rules_dir`.
+fn load_side(spec: &str, rules_dir: &str) -> Result<Ruleset, CliError> {
+    let path = Path::new(spec);
+    if path.is_dir() {
+        return Ok(rules::load_dir(path)?);
+    }
+    let repo = std::env::current_dir()?;
+    Ok(rules::load_at_revision(&repo, spec, rules_dir)?)
+}
+
+pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    let demo = args.sample.demo;
+    let base_spec = args.base.clone().unwrap_or_else(|| DEMO_BASE.into());
+    let head_spec = args.head.clone().unwrap_or_else(|| {
+        if demo && args.base.is_none() {
+            DEMO_HEAD.into()
+        } else {
+            args.rules.clone()
+        }
+    });
+    let base = Arc::new(Analyzer::new(load_side(&base_spec, &args.rules)?)?);
+    let head = Arc::new(Analyzer::new(load_side(&head_spec, &args.rules)?)?);
+    let loaded = args.sample.load(args.docs, false)?;
+    let limits = GateLimits {
+        max_emptied_searches: args.max_emptied_searches,
+        max_lost_traffic_share: args.max_lost_traffic_share,
+        max_ndcg_drop: args.max_ndcg_drop,
+        max_query_ndcg_drop: args.max_query_ndcg_drop,
+        fail_on_lint: args.fail_on_lint,
+    };
+    let lint_config = LintConfig::default();
+    let outcome = review::review(
+        ReviewInput {
+            base,
+            head,
+            corpus: &loaded.corpus,
+            queries: &loaded.log,
+            judged: loaded.judged,
+            lint: &lint_config,
+            limits,
+        },
+        &loaded.options,
+        &bar(),
+    )?;
+    let report = outcome.report;
+    let limits = Limits {
+        queries: args.limit,
+        docs: args.docs,
+    };
+    let markdown_limits = review_markdown::Limits {
+        queries: args.limit,
+        docs: args.docs,
+    };
+    if let Some(path) = &args.markdown {
+        write_file(
+            path,
+            review_markdown::render(&report, markdown_limits).as_bytes(),
+            true,
+        )?;
+    }
+    if let Some(path) = &args.html {
+        write_file(
+            path,
+            lexdelta::report::review_html::render(&report).as_bytes(),
+            true,
+        )?;
+    }
+    if let Some(path) = &args.sarif {
+        let sarif = lint_sarif::render(&report.lint, &std::env::current_dir()?)?;
+        write_file(path, sarif.as_bytes(), true)?;
+    }
+    let rendered = match args.format {
+        Format::Text => review_text::render(&report, Style::for_stdout(args.color), limits),
+        Format::Markdown => review_markdown::render(&report, markdown_limits),
+        Format::Json => review_json::render(&report)?,
+    };
+    print(&rendered)?;
+    if let Some(path) = &args.html {
+        eprintln!("lexdelta: wrote {}", path.display());
+    }
+    if report.gate.passed() {
+        Ok(ExitCode::SUCCESS)
+    } else {
+        for b in &report.gate.breaches {
+            eprintln!("gate: {}: {}", b.limit, b.reason);
+        }
+        Ok(ExitCode::from(1))
+    }
+}
