@@ -3,11 +3,11 @@
 use std::collections::BTreeMap;
 use std::sync::Arc;
 
-use super::{CheckInfo, Needs, words};
+use super::{CheckInfo, Needs};
 use crate::analysis::RuleRef;
 use crate::lint::graph::single_surface;
-use crate::lint::{Context, Finding, KeyedVocabulary, plural, quoted_list};
-use crate::rules::{ExemptKind, Term};
+use crate::lint::{Context, Finding, KeyedVocabulary, RuleTerm, plural, quoted_list};
+use crate::rules::ExemptKind;
 use crate::severity::Severity;
 
 /// A file with more dead lemma overrides than this gets one summary finding instead of one
@@ -44,19 +44,22 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
 }
 
 /// Whether every key of the term is some vocabulary form's key.
-fn occurs(cx: &Context, vocabulary: &KeyedVocabulary, term: &Term) -> bool {
-    let words = words(cx.analyzer, &term.text);
-    let mut keys = words.iter().filter_map(|w| w.key.as_deref()).peekable();
+fn occurs(vocabulary: &KeyedVocabulary, term: &RuleTerm) -> bool {
+    let mut keys = term
+        .words
+        .iter()
+        .filter_map(|w| w.key.as_deref())
+        .peekable();
     keys.peek().is_some() && keys.all(|k| vocabulary.has_key(k))
 }
 
 fn synonyms(cx: &Context, vocabulary: &KeyedVocabulary, out: &mut Vec<Finding>) {
     for (i, rule) in cx.ruleset.synonyms.iter().enumerate() {
-        let terms = rule.terms();
-        if terms.iter().any(|t| occurs(cx, vocabulary, t)) {
+        let terms = cx.terms.get(i).map_or(&[][..], Vec::as_slice);
+        if terms.is_empty() || terms.iter().any(|t| occurs(vocabulary, t)) {
             continue;
         }
-        let texts: Vec<&str> = terms.iter().map(|t| t.text.as_str()).collect();
+        let texts: Vec<&str> = terms.iter().map(|t| t.term.text.as_str()).collect();
         out.push(
             Finding::new(
                 &INFO,
@@ -100,8 +103,11 @@ fn exemptions(cx: &Context, vocabulary: &KeyedVocabulary, out: &mut Vec<Finding>
     }
 }
 
+/// A file's lemma override count, and its dead overrides (rule index, form).
+type FileLemmas = (usize, Vec<(usize, String)>);
+
 fn lemmas(cx: &Context, vocabulary: &KeyedVocabulary, out: &mut Vec<Finding>) {
-    let mut per_file: BTreeMap<Arc<str>, (usize, Vec<(usize, String)>)> = BTreeMap::new();
+    let mut per_file: BTreeMap<Arc<str>, FileLemmas> = BTreeMap::new();
     for (i, rule) in cx.ruleset.lemmas.iter().enumerate() {
         let entry = per_file.entry(rule.form.origin.file.clone()).or_default();
         entry.0 += 1;
