@@ -511,6 +511,17 @@ mod tests {
     }
 
     #[test]
+    fn key_nodes_written_as_an_exempt_word_are_marked() {
+        let a =
+            analyzer("exempt: [universal]\nsynonyms:\n  - equivalent: [universal, accessible]\n");
+        let g = TermGraph::build(&a);
+        let universal = g.key_node_of(&Phrase::single("universal")).unwrap();
+        assert_eq!(g.node(universal).exempt, vec![0]);
+        assert_eq!(g.term_nodes(0).len(), 2);
+        assert_eq!(g.node(g.hub(0).unwrap()).label(), "test.yaml:5");
+    }
+
+    #[test]
     fn lemma_edges_join_surface_forms_and_exemptions_mark_them() {
         let a = analyzer(
             "exempt: [lay]\nlemmas:\n  - {form: laid, lemma: lay}\n  - {form: lay, lemma: lie}\n  - {form: lie, lemma: laid}\n",

@@ -24,7 +24,8 @@ pub const INFO: CheckInfo = CheckInfo {
     finds: "A synonym rule none of whose terms occur in the vocabulary (a term occurs when \
             each of its keys is the key of some surface form), an exempt term or a lemma \
             override whose surface form occurs nowhere. When one file holds more than 20 dead \
-            lemma overrides they are summed up in one finding on the first of them.",
+            lemma overrides they are summed up in one finding on the first of them (a `lint:` \
+            override on that one governs the summary).",
     why: "A rule that never fires costs nothing at search time but a lot at review time: \
           readers assume it does something, and a later edit to it is never tested by real \
           text. In an imported list, the dead share says how much of the list the corpus \
