@@ -236,6 +236,23 @@ fn arg(name: &str, default: usize) -> usize {
 }
 
 fn main() {
+    // `cargo bench` passes --bench; `cargo test --benches` (or --all-targets) does not, and
+    // then a small smoke run checks the harness still works without taking minutes.
+    if !std::env::args().any(|a| a == "--bench") {
+        let s = setup(200, 1_000);
+        let (report, _) = run_lint(&s);
+        assert!(
+            report
+                .findings
+                .iter()
+                .any(|f| f.check == "stem-side-effect")
+        );
+        println!(
+            "bench smoke run: {} findings (run `cargo bench --bench lint` to time)",
+            report.findings.len()
+        );
+        return;
+    }
     let sets = arg("--sets", 100_000);
     let forms = arg("--forms", 200_000);
 
