@@ -6,8 +6,6 @@
 //! and lists the other forms that reach it, with how often they occur, leaving out plain
 //! inflections of the word itself ([`inflection`](crate::lint::inflection)).
 
-use std::rc::Rc;
-
 use rustc_hash::{FxHashMap, FxHashSet};
 
 use super::{CheckInfo, Needs};
@@ -50,7 +48,7 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     let language = cx.ruleset.pipeline.stemmer;
     // The other forms of each distinct word, before the per-rule filter: rule terms repeat
     // words a lot, and the inflection test is the costly part.
-    let mut memo: FxHashMap<&str, Rc<Vec<FormCount>>> = FxHashMap::default();
+    let mut memo: FxHashMap<&str, Vec<FormCount>> = FxHashMap::default();
     for (i, terms) in cx.terms.iter().enumerate() {
         // Forms the rule itself writes are no surprise to its author (built only for the
         // few rules whose words have other forms at all).
@@ -66,7 +64,7 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
                 };
                 let others = memo
                     .entry(word.surface.as_str())
-                    .or_insert_with(|| Rc::new(other_forms(cx, vocabulary, language, word, key)));
+                    .or_insert_with(|| other_forms(cx, vocabulary, language, word, key));
                 if others.is_empty() {
                     continue;
                 }
