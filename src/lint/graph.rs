@@ -20,11 +20,15 @@
 use petgraph::graph::{DiGraph, EdgeIndex, NodeIndex};
 use petgraph::unionfind::UnionFind;
 use petgraph::visit::EdgeRef;
-use petgraph::{Direction, algo, visit::EdgeFiltered};
-use rustc_hash::FxHashMap;
+use petgraph::{Direction, algo};
+use std::collections::hash_map::Entry;
+use std::hash::{Hash, Hasher};
 
-use crate::analysis::{Analyzer, CompiledSynonym, Phrase, RuleRef};
-use crate::rules::{Origin, SynonymKind, Term};
+use rustc_hash::{FxHashMap, FxHasher};
+
+use crate::analysis::{Analyzer, Phrase, RuleRef};
+use crate::lint::terms::{RuleTerm, rule_terms};
+use crate::rules::{Origin, RuleMeta, SynonymKind, Term};
 
 /// What a node stands for.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -53,8 +57,10 @@ pub struct Node {
     /// Exemption rules (indices into the ruleset's `exemptions`) that protect the node's
     /// surface form; only surface nodes and single-word key nodes can carry one.
     pub exempt: Vec<usize>,
-    /// For a set hub: the rule's name in reports (its id, or file:line).
+    /// For a set hub: the rule's id, if it has one.
     pub name: Option<String>,
+    /// For a set hub: where the rule is written (it is named by file and line without an id).
+    pub origin: Option<Origin>,
 }
 
 impl Node {
@@ -63,7 +69,11 @@ impl Node {
         match &self.kind {
             NodeKind::Key(p) => p.display(),
             NodeKind::Surface(form) => form.clone(),
-            NodeKind::Set(i) => self.name.clone().unwrap_or_else(|| format!("set #{i}")),
+            NodeKind::Set(i) => match (&self.name, &self.origin) {
+                (Some(id), _) => id.clone(),
+                (None, Some(origin)) => origin.to_string(),
+                (None, None) => format!("set #{i}"),
+            },
         }
     }
 }
@@ -90,10 +100,15 @@ pub struct Edge {
 #[derive(Clone, Debug, Default)]
 pub struct TermGraph {
     graph: DiGraph<Node, Edge>,
-    keys: FxHashMap<Phrase, NodeIndex>,
+    /// Key nodes by the hash of their phrase: the phrase itself is stored once, in the node.
+    keys: FxHashMap<u64, NodeIndex>,
+    /// Key nodes whose phrase hash another phrase already took (practically never).
+    collided: Vec<NodeIndex>,
     surfaces: FxHashMap<String, NodeIndex>,
     /// Per synonym rule: its hub, for equivalent sets.
     hubs: Vec<Option<NodeIndex>>,
+    /// Per synonym rule: the key node of each term, in the order of its terms.
+    term_nodes: Vec<Vec<NodeIndex>>,
 }
 
 /// Connected components: a dense label per node, numbered in node order.
@@ -126,11 +141,30 @@ impl TermGraph {
     /// Builds the graph of an analyzer's ruleset; rule terms are normalized exactly as the
     /// analyzer compiled them.
     pub fn build(analyzer: &Analyzer) -> TermGraph {
+        TermGraph::from_terms(analyzer, &rule_terms(analyzer))
+    }
+
+    /// Builds the graph from synonym terms already normalized (see [`rule_terms`]).
+    pub fn from_terms(analyzer: &Analyzer, terms: &[Vec<RuleTerm>]) -> TermGraph {
         let mut g = TermGraph::default();
+        // Roughly a hub per set and a node and an edge per term: reserving once saves the
+        // repeated growth of a large ruleset.
+        let term_count: usize = terms.iter().map(Vec::len).sum();
+        g.graph.reserve_nodes(terms.len() + term_count);
+        g.graph.reserve_edges(term_count);
+        g.keys.reserve(term_count);
         let ruleset = analyzer.ruleset();
         for (i, rule) in ruleset.synonyms.iter().enumerate() {
-            let name = analyzer.rule_label(RuleRef::Synonym(i));
-            g.add_synonym(i, name, &rule.kind, rule_phrases(analyzer, i));
+            let rule_terms = terms.get(i).map_or(&[][..], Vec::as_slice);
+            match &rule.kind {
+                SynonymKind::Equivalent { .. } => {
+                    g.add_set(i, &rule.meta, rule_terms, analyzer);
+                }
+                SynonymKind::OneWay { .. } => {
+                    g.hubs.push(None);
+                    g.add_one_way(i, rule_terms, analyzer);
+                }
+            }
         }
         for (i, rule) in ruleset.lemmas.iter().enumerate() {
             let (Some(form), Some(lemma)) = (
@@ -156,41 +190,42 @@ impl TermGraph {
         g
     }
 
-    fn add_synonym(
-        &mut self,
-        i: usize,
-        name: String,
-        kind: &SynonymKind,
-        phrases: Vec<(Phrase, &Term)>,
-    ) {
+    fn add_set(&mut self, i: usize, meta: &RuleMeta, terms: &[RuleTerm], analyzer: &Analyzer) {
         let rule = RuleRef::Synonym(i);
-        self.hubs.push(None);
-        match kind {
-            SynonymKind::Equivalent { .. } => {
-                let hub = self.graph.add_node(Node {
-                    kind: NodeKind::Set(i),
-                    uses: Vec::new(),
-                    exempt: Vec::new(),
-                    name: Some(name),
-                });
-                self.hubs[i] = Some(hub);
-                for (phrase, term) in phrases {
-                    let member = self.key_node(phrase, term, rule);
-                    self.add_edge(hub, member, EdgeKind::Member, rule, term);
-                }
-            }
-            SynonymKind::OneWay { .. } => {
-                let mut phrases = phrases.into_iter();
-                let Some((phrase, term)) = phrases.next() else {
-                    return;
-                };
-                let from = self.key_node(phrase, term, rule);
-                for (phrase, term) in phrases {
-                    let to = self.key_node(phrase, term, rule);
-                    self.add_edge(from, to, EdgeKind::OneWay, rule, term);
-                }
-            }
+        let hub = self.graph.add_node(Node {
+            kind: NodeKind::Set(i),
+            uses: Vec::new(),
+            exempt: Vec::new(),
+            name: meta.id.clone(),
+            origin: Some(meta.origin.clone()),
+        });
+        self.hubs.push(Some(hub));
+        let mut nodes = Vec::with_capacity(terms.len());
+        for t in terms {
+            let member = self.key_node(&t.phrase, t.term, rule);
+            self.mark_term(member, t, analyzer);
+            self.add_edge(hub, member, EdgeKind::Member, rule, t.term);
+            nodes.push(member);
         }
+        self.term_nodes.push(nodes);
+    }
+
+    fn add_one_way(&mut self, i: usize, terms: &[RuleTerm], analyzer: &Analyzer) {
+        let rule = RuleRef::Synonym(i);
+        let Some((source, targets)) = terms.split_first() else {
+            self.term_nodes.push(Vec::new());
+            return;
+        };
+        let from = self.key_node(&source.phrase, source.term, rule);
+        self.mark_term(from, source, analyzer);
+        let mut nodes = vec![from];
+        for t in targets {
+            let to = self.key_node(&t.phrase, t.term, rule);
+            self.mark_term(to, t, analyzer);
+            self.add_edge(from, to, EdgeKind::OneWay, rule, t.term);
+            nodes.push(to);
+        }
+        self.term_nodes.push(nodes);
     }
 
     fn add_edge(&mut self, a: NodeIndex, b: NodeIndex, kind: EdgeKind, rule: RuleRef, at: &Term) {
@@ -205,18 +240,38 @@ impl TermGraph {
         );
     }
 
-    fn key_node(&mut self, phrase: Phrase, term: &Term, rule: RuleRef) -> NodeIndex {
-        let graph = &mut self.graph;
-        let index = *self.keys.entry(phrase).or_insert_with_key(|phrase| {
-            graph.add_node(Node {
-                kind: NodeKind::Key(phrase.clone()),
-                uses: Vec::new(),
-                exempt: Vec::new(),
-                name: None,
-            })
-        });
+    fn key_node(&mut self, phrase: &Phrase, term: &Term, rule: RuleRef) -> NodeIndex {
+        let hash = phrase_hash(phrase);
+        let index = match self.find_key(hash, phrase) {
+            Some(index) => index,
+            None => {
+                let index = self.graph.add_node(Node {
+                    kind: NodeKind::Key(phrase.clone()),
+                    uses: Vec::new(),
+                    exempt: Vec::new(),
+                    name: None,
+                    origin: None,
+                });
+                match self.keys.entry(hash) {
+                    Entry::Occupied(_) => self.collided.push(index),
+                    Entry::Vacant(slot) => {
+                        slot.insert(index);
+                    }
+                }
+                index
+            }
+        };
         self.graph[index].uses.push(use_of(term, rule));
         index
+    }
+
+    fn find_key(&self, hash: u64, phrase: &Phrase) -> Option<NodeIndex> {
+        let is = |n: &NodeIndex| matches!(&self.graph[*n].kind, NodeKind::Key(p) if p == phrase);
+        self.keys
+            .get(&hash)
+            .copied()
+            .filter(is)
+            .or_else(|| self.collided.iter().copied().find(is))
     }
 
     fn surface_node(&mut self, form: String, term: &Term, rule: RuleRef) -> NodeIndex {
@@ -227,6 +282,7 @@ impl TermGraph {
                 uses: Vec::new(),
                 exempt: Vec::new(),
                 name: None,
+                origin: None,
             })
         });
         self.graph[index].uses.push(use_of(term, rule));
@@ -234,23 +290,27 @@ impl TermGraph {
     }
 
     /// Marks surface nodes, and key nodes written as a single exempt word.
+    /// Marks surface nodes with the exemption that protects their form (key nodes are
+    /// marked as their terms are added, from the words already at hand).
     fn mark_exemptions(&mut self, analyzer: &Analyzer) {
         for node in self.graph.node_weights_mut() {
-            let mut exempt = Vec::new();
-            match &node.kind {
-                NodeKind::Surface(form) => exempt.extend(analyzer.is_exempt(form)),
-                NodeKind::Key(phrase) if phrase.is_single() => {
-                    for u in &node.uses {
-                        if let Some(form) = single_surface(analyzer, &u.text) {
-                            exempt.extend(analyzer.is_exempt(&form));
-                        }
-                    }
-                }
-                _ => {}
+            if let NodeKind::Surface(form) = &node.kind {
+                node.exempt = analyzer.is_exempt(form).into_iter().collect();
             }
-            exempt.sort_unstable();
-            exempt.dedup();
-            node.exempt = exempt;
+        }
+    }
+
+    /// Marks a key node written as one exempt word.
+    fn mark_term(&mut self, node: NodeIndex, term: &RuleTerm, analyzer: &Analyzer) {
+        let [word] = term.words.as_slice() else {
+            return;
+        };
+        if let Some(rule) = analyzer.is_exempt(&word.surface) {
+            let exempt = &mut self.graph[node].exempt;
+            if !exempt.contains(&rule) {
+                exempt.push(rule);
+                exempt.sort_unstable();
+            }
         }
     }
 
@@ -279,11 +339,17 @@ impl TermGraph {
     }
 
     pub fn key_node_of(&self, phrase: &Phrase) -> Option<NodeIndex> {
-        self.keys.get(phrase).copied()
+        self.find_key(phrase_hash(phrase), phrase)
     }
 
     pub fn surface_node_of(&self, form: &str) -> Option<NodeIndex> {
         self.surfaces.get(form).copied()
+    }
+
+    /// The key node of each term of synonym rule `rule` (equivalent: the members; one-way:
+    /// the source, then the targets).
+    pub fn term_nodes(&self, rule: usize) -> &[NodeIndex] {
+        self.term_nodes.get(rule).map_or(&[], Vec::as_slice)
     }
 
     /// The hub of an equivalent set (by synonym rule index).
@@ -301,6 +367,14 @@ impl TermGraph {
             .collect();
         out.sort_unstable_by_key(|(id, _, _)| *id);
         out.into_iter().map(|(_, n, e)| (n, e)).collect()
+    }
+
+    /// How many member edges point at a node (a set listing a key twice counts twice).
+    pub fn set_count(&self, node: NodeIndex) -> usize {
+        self.graph
+            .edges_directed(node, Direction::Incoming)
+            .filter(|e| e.weight().kind == EdgeKind::Member)
+            .count()
     }
 
     /// The set hubs a key node is a member of, with the member edge, in rule order.
@@ -351,11 +425,24 @@ impl TermGraph {
     /// Strongly connected components of the edges of one kind with more than one node, each
     /// sorted, in order of their smallest node.
     pub fn cycles_of(&self, kind: EdgeKind) -> Vec<Vec<NodeIndex>> {
-        let filtered = EdgeFiltered::from_fn(&self.graph, |e| e.weight().kind == kind);
-        let mut sccs: Vec<Vec<NodeIndex>> = algo::tarjan_scc(&filtered)
+        // Only the nodes these edges touch: one-way and lemma edges are few next to the
+        // member edges, so the search stays small on a large ruleset.
+        let mut sub: DiGraph<NodeIndex, ()> = DiGraph::new();
+        let mut local: FxHashMap<NodeIndex, NodeIndex> = FxHashMap::default();
+        for e in self
+            .graph
+            .edge_references()
+            .filter(|e| e.weight().kind == kind)
+        {
+            let mut at = |n: NodeIndex| *local.entry(n).or_insert_with(|| sub.add_node(n));
+            let (a, b) = (at(e.source()), at(e.target()));
+            sub.add_edge(a, b, ());
+        }
+        let mut sccs: Vec<Vec<NodeIndex>> = algo::tarjan_scc(&sub)
             .into_iter()
             .filter(|c| c.len() > 1)
-            .map(|mut c| {
+            .map(|c| {
+                let mut c: Vec<NodeIndex> = c.into_iter().map(|n| sub[n]).collect();
                 c.sort_unstable();
                 c
             })
@@ -365,34 +452,10 @@ impl TermGraph {
     }
 }
 
-/// The phrases of synonym rule `rule`'s terms (equivalent: the members; one-way: the source,
-/// then the targets), paired with the terms, as the analyzer compiled them. The compiled rule
-/// is used when it lines up with the written one (it always does once the ruleset compiled);
-/// otherwise each term is normalized again.
-pub fn rule_phrases(analyzer: &Analyzer, rule: usize) -> Vec<(Phrase, &Term)> {
-    let Some(written) = analyzer.ruleset().synonyms.get(rule) else {
-        return Vec::new();
-    };
-    let compiled = analyzer.synonyms().rules().get(rule);
-    let terms: Vec<&Term> = match &written.kind {
-        SynonymKind::Equivalent { members } => members.iter().collect(),
-        SynonymKind::OneWay { from, to } => std::iter::once(from).chain(to).collect(),
-    };
-    let phrases: Option<Vec<&Phrase>> = match compiled {
-        Some(CompiledSynonym::Equivalent(members)) => Some(members.iter().collect()),
-        Some(CompiledSynonym::OneWay { from, to }) => {
-            Some(std::iter::once(from).chain(to).collect())
-        }
-        None => None,
-    };
-    match phrases {
-        Some(p) if p.len() == terms.len() => p.into_iter().cloned().zip(terms).collect(),
-        _ => terms
-            .into_iter()
-            .map(|t| (analyzer.phrase(&t.text), t))
-            .filter(|(p, _)| !p.keys.is_empty())
-            .collect(),
-    }
+fn phrase_hash(phrase: &Phrase) -> u64 {
+    let mut hasher = FxHasher::default();
+    phrase.hash(&mut hasher);
+    hasher.finish()
 }
 
 fn use_of(term: &Term, rule: RuleRef) -> TermUse {
@@ -445,6 +508,17 @@ mod tests {
             components.of(g.key_node_of(&Phrase::single("amend")).unwrap())
         );
         assert_ne!(components.of(chang), components.of(lift));
+    }
+
+    #[test]
+    fn key_nodes_written_as_an_exempt_word_are_marked() {
+        let a =
+            analyzer("exempt: [universal]\nsynonyms:\n  - equivalent: [universal, accessible]\n");
+        let g = TermGraph::build(&a);
+        let universal = g.key_node_of(&Phrase::single("universal")).unwrap();
+        assert_eq!(g.node(universal).exempt, vec![0]);
+        assert_eq!(g.term_nodes(0).len(), 2);
+        assert_eq!(g.node(g.hub(0).unwrap()).label(), "test.yaml:5");
     }
 
     #[test]

@@ -16,54 +16,100 @@ use crate::rules::Language;
 
 /// Whether `a` and `b` are inflections of one word in `language`.
 pub fn same_word(language: Option<Language>, a: &str, b: &str) -> bool {
-    if a == b {
-        return true;
+    Inflections::of(language, a).includes(b)
+}
+
+/// A candidate base: a prefix of the form plus an optional restored letter ("chang" + "e"),
+/// kept as two slices so comparing bases allocates nothing — lint compares every rule word
+/// with every form that shares its key.
+#[derive(Clone, Copy, Debug)]
+struct Base<'a> {
+    stem: &'a str,
+    tail: &'static str,
+}
+
+impl PartialEq for Base<'_> {
+    fn eq(&self, other: &Self) -> bool {
+        self.stem.len() + self.tail.len() == other.stem.len() + other.tail.len()
+            && self
+                .stem
+                .bytes()
+                .chain(self.tail.bytes())
+                .eq(other.stem.bytes().chain(other.tail.bytes()))
     }
-    match language {
-        Some(Language::English) => {
-            let left = english_bases(a);
-            english_bases(b).iter().any(|x| left.contains(x))
+}
+
+/// One word's possible bases, computed once to compare it with many forms.
+#[derive(Clone, Debug)]
+pub struct Inflections<'a> {
+    language: Option<Language>,
+    word: &'a str,
+    bases: Vec<Base<'a>>,
+}
+
+impl<'a> Inflections<'a> {
+    pub fn of(language: Option<Language>, word: &'a str) -> Self {
+        let mut bases = Vec::new();
+        if language == Some(Language::English) {
+            english_bases(word, &mut bases);
         }
-        _ => false,
+        Inflections {
+            language,
+            word,
+            bases,
+        }
+    }
+
+    /// Whether `form` is an inflection of this word.
+    pub fn includes(&self, form: &str) -> bool {
+        if form == self.word {
+            return true;
+        }
+        if self.language != Some(Language::English) {
+            return false;
+        }
+        let mut theirs = Vec::with_capacity(8);
+        english_bases(form, &mut theirs);
+        theirs.iter().any(|b| self.bases.contains(b))
     }
 }
 
 /// The form itself and every base a regular English ending could have been added to.
-fn english_bases(form: &str) -> Vec<String> {
-    let mut out = vec![form.to_string()];
-    let mut add = |base: &str| {
+fn english_bases<'a>(form: &'a str, out: &mut Vec<Base<'a>>) {
+    let mut add = |stem: &'a str, tail: &'static str| {
+        let base = Base { stem, tail };
         // Very short bases are too easy to reach by accident ("bus" → "bu").
-        if base.chars().count() >= 2 && !out.iter().any(|b| b == base) {
-            out.push(base.to_string());
+        if stem.chars().count() + tail.len() >= 2 && !out.contains(&base) {
+            out.push(base);
         }
     };
+    add(form, "");
     if let Some(stem) = form.strip_suffix("'s") {
-        add(stem);
+        add(stem, "");
     }
     if let Some(stem) = form
         .strip_suffix("ies")
         .or_else(|| form.strip_suffix("ied"))
     {
-        add(&format!("{stem}y"));
+        add(stem, "y");
     }
     if let Some(stem) = form.strip_suffix("es") {
-        add(stem);
+        add(stem, "");
     }
     if let Some(stem) = form.strip_suffix('s')
         && !stem.ends_with('s')
     {
-        add(stem);
+        add(stem, "");
     }
     for ending in ["ed", "ing"] {
         if let Some(stem) = form.strip_suffix(ending) {
-            add(stem);
-            add(&format!("{stem}e"));
+            add(stem, "");
+            add(stem, "e");
             if let Some(single) = undouble(stem) {
-                add(single);
+                add(single, "");
             }
         }
     }
-    out
 }
 
 /// "stopp" → "stop", "travell" → "travel": the consonant doubled before an ending.

@@ -38,12 +38,14 @@
 pub mod checks;
 pub mod graph;
 pub mod inflection;
+pub mod terms;
 pub mod vocabulary;
 
 use serde::Serialize;
 
 pub use checks::{CheckInfo, Needs};
 pub use graph::TermGraph;
+pub use terms::{RuleTerm, Word};
 pub use vocabulary::{FormStats, KeyedVocabulary, Vocabulary, VocabularySummary};
 
 use crate::analysis::{Analyzer, RuleRef};
@@ -273,6 +275,8 @@ pub struct Context<'a> {
     pub analyzer: &'a Analyzer,
     pub ruleset: &'a Ruleset,
     pub graph: &'a TermGraph,
+    /// Every synonym rule's terms, normalized once, indexed like the ruleset's `synonyms`.
+    pub terms: &'a [Vec<RuleTerm<'a>>],
     pub vocabulary: Option<&'a KeyedVocabulary<'a>>,
     pub base: Option<&'a Ruleset>,
     pub max_group_size: usize,
@@ -282,12 +286,14 @@ pub struct Context<'a> {
 /// Runs every check on a compiled ruleset.
 pub fn lint(analyzer: &Analyzer, input: &LintInput) -> LintReport {
     let ruleset = analyzer.ruleset();
-    let graph = TermGraph::build(analyzer);
+    let terms = terms::rule_terms(analyzer);
+    let graph = TermGraph::from_terms(analyzer, &terms);
     let keyed = input.vocabulary.map(|v| KeyedVocabulary::new(v, analyzer));
     let cx = Context {
         analyzer,
         ruleset,
         graph: &graph,
+        terms: &terms,
         vocabulary: keyed.as_ref(),
         base: input.base,
         max_group_size: ruleset

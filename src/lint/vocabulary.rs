@@ -6,6 +6,8 @@
 //! surface stage (steps 1–3) runs while counting, so one vocabulary serves every ruleset
 //! with the same surface settings.
 
+use std::cell::OnceCell;
+
 use rustc_hash::{FxHashMap, FxHashSet};
 use serde::Serialize;
 
@@ -130,22 +132,40 @@ impl Vocabulary {
 #[derive(Clone, Debug)]
 pub struct KeyedVocabulary<'v> {
     pub vocabulary: &'v Vocabulary,
+    /// Every form, in form order, sorted on first use (only pattern checks need it).
+    sorted: OnceCell<Vec<(&'v str, FormStats)>>,
     by_key: FxHashMap<String, Vec<(&'v str, FormStats)>>,
 }
 
 impl<'v> KeyedVocabulary<'v> {
     pub fn new(vocabulary: &'v Vocabulary, analyzer: &Analyzer) -> Self {
         let mut by_key: FxHashMap<String, Vec<(&'v str, FormStats)>> = FxHashMap::default();
-        // Sorted input keeps every list in form order without sorting each one.
-        for (form, stats) in vocabulary.sorted() {
-            if let Some(key) = analyzer.key(form) {
-                by_key
-                    .entry(key.into_owned())
-                    .or_default()
-                    .push((form, stats));
+        for (form, stats) in &vocabulary.forms {
+            let Some(key) = analyzer.key(form) else {
+                continue;
+            };
+            let entry = (form.as_str(), *stats);
+            match by_key.get_mut(key.as_ref()) {
+                Some(list) => list.push(entry),
+                None => {
+                    by_key.insert(key.into_owned(), vec![entry]);
+                }
             }
         }
-        KeyedVocabulary { vocabulary, by_key }
+        // Hash order is arbitrary: sort each (short) list so results are deterministic.
+        for list in by_key.values_mut() {
+            list.sort_unstable_by(|a, b| a.0.cmp(b.0));
+        }
+        KeyedVocabulary {
+            vocabulary,
+            sorted: OnceCell::new(),
+            by_key,
+        }
+    }
+
+    /// Every form with its counts, in form order.
+    pub fn sorted(&self) -> &[(&'v str, FormStats)] {
+        self.sorted.get_or_init(|| self.vocabulary.sorted())
     }
 
     /// The surface forms whose key is `key`, in form order.

@@ -232,19 +232,57 @@ pub fn render_check_list(style: Style) -> String {
     out
 }
 
-/// `--explain NAME`: the check's full documentation.
+/// `--explain NAME`: the check's full documentation, prose wrapped for a terminal.
 pub fn render_explanation(info: &CheckInfo, style: Style) -> String {
     format!(
         "{} ({} by default)\n\n{}\n",
         style.bold(info.name),
         info.severity.name(),
-        info.explanation()
+        wrap(&info.explanation(), 88)
     )
+}
+
+/// Wraps prose lines at `width` columns; indented lines (examples) are left as they are.
+fn wrap(text: &str, width: usize) -> String {
+    let mut out = Vec::new();
+    for line in text.lines() {
+        if line.starts_with(' ') || line.chars().count() <= width {
+            out.push(line.to_string());
+            continue;
+        }
+        let mut current = String::new();
+        for word in line.split(' ') {
+            if !current.is_empty() && current.chars().count() + 1 + word.chars().count() > width {
+                out.push(std::mem::take(&mut current));
+            }
+            if !current.is_empty() {
+                current.push(' ');
+            }
+            current.push_str(word);
+        }
+        out.push(current);
+    }
+    out.join("\n")
 }
 
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn prose_wraps_and_examples_do_not() {
+        let text = format!(
+            "{}\n    keep: [this, line, exactly, as, it, is, however, long, it, gets, to, be]",
+            "word ".repeat(30)
+        );
+        let wrapped = wrap(&text, 20);
+        assert!(
+            wrapped
+                .lines()
+                .all(|l| l.chars().count() <= 20 || l.starts_with("    "))
+        );
+        assert!(wrapped.ends_with("long, it, gets, to, be]"));
+    }
 
     #[test]
     fn carets_cover_the_scalar() {

@@ -3,11 +3,11 @@
 use std::collections::BTreeMap;
 use std::sync::Arc;
 
-use super::{CheckInfo, Needs, words};
+use super::{CheckInfo, Needs};
 use crate::analysis::RuleRef;
 use crate::lint::graph::single_surface;
-use crate::lint::{Context, Finding, KeyedVocabulary, plural, quoted_list};
-use crate::rules::{ExemptKind, Term};
+use crate::lint::{Context, Finding, KeyedVocabulary, RuleTerm, plural, quoted_list};
+use crate::rules::ExemptKind;
 use crate::severity::Severity;
 
 /// A file with more dead lemma overrides than this gets one summary finding instead of one
@@ -24,7 +24,8 @@ pub const INFO: CheckInfo = CheckInfo {
     finds: "A synonym rule none of whose terms occur in the vocabulary (a term occurs when \
             each of its keys is the key of some surface form), an exempt term or a lemma \
             override whose surface form occurs nowhere. When one file holds more than 20 dead \
-            lemma overrides they are summed up in one finding on the first of them.",
+            lemma overrides they are summed up in one finding on the first of them (a `lint:` \
+            override on that one governs the summary).",
     why: "A rule that never fires costs nothing at search time but a lot at review time: \
           readers assume it does something, and a later edit to it is never tested by real \
           text. In an imported list, the dead share says how much of the list the corpus \
@@ -44,19 +45,22 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
 }
 
 /// Whether every key of the term is some vocabulary form's key.
-fn occurs(cx: &Context, vocabulary: &KeyedVocabulary, term: &Term) -> bool {
-    let words = words(cx.analyzer, &term.text);
-    let mut keys = words.iter().filter_map(|w| w.key.as_deref()).peekable();
+fn occurs(vocabulary: &KeyedVocabulary, term: &RuleTerm) -> bool {
+    let mut keys = term
+        .words
+        .iter()
+        .filter_map(|w| w.key.as_deref())
+        .peekable();
     keys.peek().is_some() && keys.all(|k| vocabulary.has_key(k))
 }
 
 fn synonyms(cx: &Context, vocabulary: &KeyedVocabulary, out: &mut Vec<Finding>) {
     for (i, rule) in cx.ruleset.synonyms.iter().enumerate() {
-        let terms = rule.terms();
-        if terms.iter().any(|t| occurs(cx, vocabulary, t)) {
+        let terms = cx.terms.get(i).map_or(&[][..], Vec::as_slice);
+        if terms.is_empty() || terms.iter().any(|t| occurs(vocabulary, t)) {
             continue;
         }
-        let texts: Vec<&str> = terms.iter().map(|t| t.text.as_str()).collect();
+        let texts: Vec<&str> = terms.iter().map(|t| t.term.text.as_str()).collect();
         out.push(
             Finding::new(
                 &INFO,
@@ -100,8 +104,11 @@ fn exemptions(cx: &Context, vocabulary: &KeyedVocabulary, out: &mut Vec<Finding>
     }
 }
 
+/// A file's lemma override count, and its dead overrides (rule index, form).
+type FileLemmas = (usize, Vec<(usize, String)>);
+
 fn lemmas(cx: &Context, vocabulary: &KeyedVocabulary, out: &mut Vec<Finding>) {
-    let mut per_file: BTreeMap<Arc<str>, (usize, Vec<(usize, String)>)> = BTreeMap::new();
+    let mut per_file: BTreeMap<Arc<str>, FileLemmas> = BTreeMap::new();
     for (i, rule) in cx.ruleset.lemmas.iter().enumerate() {
         let entry = per_file.entry(rule.form.origin.file.clone()).or_default();
         entry.0 += 1;

@@ -3,8 +3,10 @@
 use rustc_hash::FxHashMap;
 
 use super::{CheckInfo, Needs};
-use crate::analysis::{Phrase, RuleRef};
-use crate::lint::graph::{rule_phrases, single_surface};
+use petgraph::graph::NodeIndex;
+
+use crate::analysis::RuleRef;
+use crate::lint::graph::single_surface;
 use crate::lint::{Context, Finding};
 use crate::rules::{ExemptKind, Origin, SynonymKind};
 use crate::severity::Severity;
@@ -29,8 +31,8 @@ pub const INFO: CheckInfo = CheckInfo {
 /// What a rule says, normalized: two rules with equal signatures are duplicates.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
 enum Signature {
-    Set(Vec<Phrase>),
-    OneWay(Phrase, Vec<Phrase>),
+    Set(Vec<NodeIndex>),
+    OneWay(NodeIndex, Vec<NodeIndex>),
     ExemptTerm(String),
     ExemptPattern(String),
     Lemma(String, String),
@@ -66,10 +68,9 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
 fn signatures(cx: &Context) -> Vec<(RuleRef, Origin, Signature)> {
     let mut out = Vec::new();
     for (i, rule) in cx.ruleset.synonyms.iter().enumerate() {
-        let mut phrases: Vec<Phrase> = rule_phrases(cx.analyzer, i)
-            .into_iter()
-            .map(|(p, _)| p)
-            .collect();
+        // Terms are compared through their key nodes: equal phrases are one node, so a
+        // rule's content is a short list of node numbers, cheap to sort and hash.
+        let mut phrases: Vec<NodeIndex> = cx.graph.term_nodes(i).to_vec();
         let signature = match &rule.kind {
             SynonymKind::Equivalent { .. } => {
                 phrases.sort_unstable();

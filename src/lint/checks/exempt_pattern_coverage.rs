@@ -32,12 +32,12 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     let Some(vocabulary) = cx.vocabulary else {
         return;
     };
-    let forms = vocabulary.vocabulary.sorted();
     for (i, rule) in cx.ruleset.exemptions.iter().enumerate() {
         let ExemptKind::Pattern { source, regex } = &rule.kind else {
             continue;
         };
-        let matched: Vec<FormCount> = forms
+        let matched: Vec<FormCount> = vocabulary
+            .sorted()
             .iter()
             .filter(|(form, _)| regex.is_match(form))
             .map(|(form, stats)| FormCount {

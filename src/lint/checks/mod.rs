@@ -23,7 +23,7 @@ use petgraph::graph::NodeIndex;
 
 use super::graph::TermGraph;
 use super::{Context, Finding};
-use crate::analysis::{Analyzer, RuleRef};
+use crate::analysis::RuleRef;
 use crate::severity::Severity;
 
 /// What a check needs besides the ruleset.
@@ -162,25 +162,6 @@ pub fn closest(name: &str) -> Option<&'static str> {
         }
     }
     best.map(|(_, n)| n)
-}
-
-/// One word of a rule term after the surface stage, with its key (`None`: a stopword).
-pub(crate) struct Word {
-    pub surface: String,
-    pub key: Option<String>,
-}
-
-/// The words of a rule term, as the analyzer sees them.
-pub(crate) fn words(analyzer: &Analyzer, text: &str) -> Vec<Word> {
-    analyzer
-        .surface()
-        .tokens(text)
-        .into_iter()
-        .map(|t| Word {
-            key: analyzer.key(&t.form).map(|k| k.into_owned()),
-            surface: t.form,
-        })
-        .collect()
 }
 
 /// How a node was written in `rule` (or in its first rule): terms are shown as the author

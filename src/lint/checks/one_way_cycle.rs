@@ -31,7 +31,7 @@ pub const INFO: CheckInfo = CheckInfo {
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     for knot in cx.graph.cycles_of(EdgeKind::OneWay) {
         if let Some(cycle) = shortest_cycle(cx, &knot) {
-            out.push(finding(cx, &knot, &cycle));
+            out.extend(finding(cx, &knot, &cycle));
         }
     }
 }
@@ -82,12 +82,13 @@ fn unwind<'g>(
     edges
 }
 
-fn finding(cx: &Context, knot: &[NodeIndex], cycle: &[(NodeIndex, NodeIndex, &Edge)]) -> Finding {
+fn finding(
+    cx: &Context,
+    knot: &[NodeIndex],
+    cycle: &[(NodeIndex, NodeIndex, &Edge)],
+) -> Option<Finding> {
     // Report on the rule written last: usually the one that closed the loop.
-    let (_, _, primary) = cycle
-        .iter()
-        .max_by(|a, b| a.2.origin.cmp(&b.2.origin))
-        .expect("a cycle has edges");
+    let (_, _, primary) = cycle.iter().max_by(|a, b| a.2.origin.cmp(&b.2.origin))?;
     let mut path: Vec<String> = cycle
         .iter()
         .map(|(from, _, e)| written(cx.graph, *from, e.rule))
@@ -130,7 +131,7 @@ fn finding(cx: &Context, knot: &[NodeIndex], cycle: &[(NodeIndex, NodeIndex, &Ed
         );
         f = f.related(&e.origin, note, Some(e.rule));
     }
-    f
+    Some(f)
 }
 
 #[cfg(test)]

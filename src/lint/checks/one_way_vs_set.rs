@@ -22,7 +22,7 @@ pub const INFO: CheckInfo = CheckInfo {
 
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     for (from, n) in cx.graph.nodes() {
-        if !matches!(n.kind, NodeKind::Key(_)) {
+        if !matches!(n.kind, NodeKind::Key(_)) || cx.graph.set_count(from) == 0 {
             continue;
         }
         let from_sets = cx.graph.sets_of(from);

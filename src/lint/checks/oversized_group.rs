@@ -31,10 +31,21 @@ pub const INFO: CheckInfo = CheckInfo {
 
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     let components = cx.graph.components();
-    let mut keys: Vec<Vec<String>> = vec![Vec::new(); components.count()];
+    let mut sizes = vec![0usize; components.count()];
     for (node, n) in cx.graph.nodes() {
         if matches!(n.kind, NodeKind::Key(_)) {
-            keys[components.of(node)].push(n.label());
+            sizes[components.of(node)] += 1;
+        }
+    }
+    if sizes.iter().all(|s| *s <= cx.max_group_size) {
+        return;
+    }
+    // Labels only for the groups that are reported.
+    let mut keys: Vec<Vec<String>> = vec![Vec::new(); components.count()];
+    for (node, n) in cx.graph.nodes() {
+        let c = components.of(node);
+        if sizes[c] > cx.max_group_size && matches!(n.kind, NodeKind::Key(_)) {
+            keys[c].push(n.label());
         }
     }
     let mut rules: Vec<BTreeSet<usize>> = vec![BTreeSet::new(); components.count()];

@@ -2,7 +2,6 @@
 
 use super::{CheckInfo, Needs};
 use crate::analysis::{Phrase, RuleRef};
-use crate::lint::graph::rule_phrases;
 use crate::lint::{Context, Finding, quoted_list};
 use crate::rules::{SynonymKind, Term};
 use crate::severity::Severity;
@@ -27,7 +26,8 @@ pub const INFO: CheckInfo = CheckInfo {
 
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     for (i, rule) in cx.ruleset.synonyms.iter().enumerate() {
-        let phrases = rule_phrases(cx.analyzer, i);
+        let terms = cx.terms.get(i).map_or(&[][..], Vec::as_slice);
+        let phrases: Vec<(&Phrase, &Term)> = terms.iter().map(|t| (&*t.phrase, t.term)).collect();
         match &rule.kind {
             SynonymKind::Equivalent { .. } => set_findings(cx, i, &phrases, out),
             SynonymKind::OneWay { .. } => one_way_findings(cx, i, &phrases, out),
@@ -35,7 +35,7 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     }
 }
 
-fn set_findings(cx: &Context, i: usize, phrases: &[(Phrase, &Term)], out: &mut Vec<Finding>) {
+fn set_findings(cx: &Context, i: usize, phrases: &[(&Phrase, &Term)], out: &mut Vec<Finding>) {
     let rule = RuleRef::Synonym(i);
     let Some((first, first_term)) = phrases.first() else {
         return;
@@ -65,7 +65,7 @@ fn set_findings(cx: &Context, i: usize, phrases: &[(Phrase, &Term)], out: &mut V
     }
 }
 
-fn one_way_findings(cx: &Context, i: usize, phrases: &[(Phrase, &Term)], out: &mut Vec<Finding>) {
+fn one_way_findings(cx: &Context, i: usize, phrases: &[(&Phrase, &Term)], out: &mut Vec<Finding>) {
     let rule = RuleRef::Synonym(i);
     let Some(((from, from_term), targets)) = phrases.split_first() else {
         return;

@@ -29,7 +29,7 @@ pub const INFO: CheckInfo = CheckInfo {
 
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
     for (node, n) in cx.graph.nodes() {
-        if !matches!(n.kind, NodeKind::Key(_)) {
+        if !matches!(n.kind, NodeKind::Key(_)) || cx.graph.set_count(node) < 2 {
             continue;
         }
         let sets = distinct_sets(cx, node);

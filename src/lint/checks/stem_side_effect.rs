@@ -6,13 +6,12 @@
 //! and lists the other forms that reach it, with how often they occur, leaving out plain
 //! inflections of the word itself ([`inflection`](crate::lint::inflection)).
 
-use rustc_hash::FxHashSet;
+use rustc_hash::{FxHashMap, FxHashSet};
 
-use super::{CheckInfo, Needs, Word, words};
+use super::{CheckInfo, Needs};
 use crate::analysis::RuleRef;
-use crate::lint::graph::rule_phrases;
-use crate::lint::inflection::same_word;
-use crate::lint::{Context, Finding, FormCount, KeyedVocabulary, plural};
+use crate::lint::inflection::Inflections;
+use crate::lint::{Context, Finding, FormCount, KeyedVocabulary, Word, plural};
 use crate::rules::{Language, Term};
 use crate::severity::Severity;
 
@@ -47,75 +46,93 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
         return;
     };
     let language = cx.ruleset.pipeline.stemmer;
-    for i in 0..cx.ruleset.synonyms.len() {
-        let phrases = rule_phrases(cx.analyzer, i);
-        // Forms the rule itself writes are no surprise to its author.
-        let own: FxHashSet<String> = phrases
-            .iter()
-            .flat_map(|(_, t)| cx.analyzer.surface().tokens(&t.text))
-            .map(|t| t.form)
-            .collect();
+    // The other forms of each distinct word, before the per-rule filter: rule terms repeat
+    // words a lot, and the inflection test is the costly part.
+    let mut memo: FxHashMap<&str, Vec<FormCount>> = FxHashMap::default();
+    for (i, terms) in cx.terms.iter().enumerate() {
+        // Forms the rule itself writes are no surprise to its author (built only for the
+        // few rules whose words have other forms at all).
+        let mut own: Option<FxHashSet<&str>> = None;
         // A word shared by several terms of the rule ("rail replacement", "replacement
         // bus") is reported once, on the first term that has it.
-        let mut reported: FxHashSet<String> = FxHashSet::default();
-        for (_, term) in &phrases {
-            let mut hits = side_effects(cx, vocabulary, language, term, &own);
-            hits.retain(|h| reported.insert(h.word.surface.clone()));
+        let mut reported: FxHashSet<&str> = FxHashSet::default();
+        for t in terms {
+            let mut hits = Vec::new();
+            for word in &t.words {
+                let Some(key) = word.key.as_deref() else {
+                    continue;
+                };
+                let others = memo
+                    .entry(word.surface.as_str())
+                    .or_insert_with(|| other_forms(cx, vocabulary, language, word, key));
+                if others.is_empty() {
+                    continue;
+                }
+                let own = own.get_or_insert_with(|| {
+                    terms
+                        .iter()
+                        .flat_map(|t| t.words.iter().map(|w| w.surface.as_str()))
+                        .collect()
+                });
+                let forms: Vec<FormCount> = others
+                    .iter()
+                    .filter(|f| !own.contains(f.form.as_str()))
+                    .cloned()
+                    .collect();
+                if !forms.is_empty() && reported.insert(word.surface.as_str()) {
+                    hits.push(Hit { word, key, forms });
+                }
+            }
             if !hits.is_empty() {
-                out.push(finding(cx, i, term, hits));
+                out.push(finding(cx, i, t.term, hits));
             }
         }
     }
 }
 
 /// One word of a term and the other forms that share its key.
-struct Hit {
-    word: Word,
-    key: String,
+struct Hit<'a> {
+    word: &'a Word,
+    key: &'a str,
     forms: Vec<FormCount>,
 }
 
-fn side_effects(
+/// The vocabulary forms with the word's key that are neither the word, nor one of its plain
+/// inflections, nor declared its irregular forms; most searched first.
+fn other_forms(
     cx: &Context,
     vocabulary: &KeyedVocabulary,
     language: Option<Language>,
-    term: &Term,
-    own: &FxHashSet<String>,
-) -> Vec<Hit> {
-    let mut hits = Vec::new();
-    for word in words(cx.analyzer, &term.text) {
-        let Some(key) = word.key.clone() else {
-            continue;
-        };
-        let mut forms: Vec<FormCount> = vocabulary
-            .forms_with_key(&key)
-            .iter()
-            .filter(|(form, _)| {
-                !own.contains(*form)
-                    && !same_word(language, &word.surface, form)
-                    && !declared_form_of(cx, form, &word.surface)
-            })
-            .map(|(form, stats)| FormCount {
-                form: form.to_string(),
-                documents: stats.documents,
-                searches: stats.searches,
-                via: cx
-                    .analyzer
-                    .lemma_of(form)
-                    .map(|(_, r)| cx.analyzer.rule_label(RuleRef::Lemma(r))),
-            })
-            .collect();
-        if forms.is_empty() {
-            continue;
-        }
-        forms.sort_by(|a, b| {
-            (b.searches, b.documents)
-                .cmp(&(a.searches, a.documents))
-                .then_with(|| a.form.cmp(&b.form))
-        });
-        hits.push(Hit { word, key, forms });
+    word: &Word,
+    key: &str,
+) -> Vec<FormCount> {
+    let candidates = vocabulary.forms_with_key(key);
+    // The common case: the word alone has its key.
+    if candidates.iter().all(|(form, _)| *form == word.surface) {
+        return Vec::new();
     }
-    hits
+    let inflections = Inflections::of(language, &word.surface);
+    let mut forms: Vec<FormCount> = candidates
+        .iter()
+        .filter(|(form, _)| {
+            !inflections.includes(form) && !declared_form_of(cx, form, &word.surface)
+        })
+        .map(|(form, stats)| FormCount {
+            form: form.to_string(),
+            documents: stats.documents,
+            searches: stats.searches,
+            via: cx
+                .analyzer
+                .lemma_of(form)
+                .map(|(_, r)| cx.analyzer.rule_label(RuleRef::Lemma(r))),
+        })
+        .collect();
+    forms.sort_by(|a, b| {
+        (b.searches, b.documents)
+            .cmp(&(a.searches, a.documents))
+            .then_with(|| a.form.cmp(&b.form))
+    });
+    forms
 }
 
 /// Whether a lemma override declares `form` an irregular form of `word` ("rode" of "ride"):
@@ -174,7 +191,7 @@ fn part(hit: &Hit, whole: &str, cx: &Context) -> String {
     }
 }
 
-fn finding(cx: &Context, i: usize, term: &Term, hits: Vec<Hit>) -> Finding {
+fn finding(cx: &Context, i: usize, term: &Term, hits: Vec<Hit<'_>>) -> Finding {
     let rule = RuleRef::Synonym(i);
     let whole = cx
         .analyzer

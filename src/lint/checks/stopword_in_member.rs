@@ -1,6 +1,6 @@
 //! `stopword-in-member`: stopwords inside synonym rule terms.
 
-use super::{CheckInfo, Needs, words};
+use super::{CheckInfo, Needs};
 use crate::analysis::RuleRef;
 use crate::lint::{Context, Finding, quoted_list};
 use crate::severity::Severity;
@@ -22,9 +22,12 @@ pub const INFO: CheckInfo = CheckInfo {
 };
 
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
-    for (i, rule) in cx.ruleset.synonyms.iter().enumerate() {
-        for term in rule.terms() {
-            let words = words(cx.analyzer, &term.text);
+    if cx.ruleset.pipeline.stopwords.is_empty() {
+        return;
+    }
+    for (i, terms) in cx.terms.iter().enumerate() {
+        for t in terms {
+            let (term, words) = (t.term, &t.words);
             let stop: Vec<usize> = (0..words.len())
                 .filter(|k| words[*k].key.is_none())
                 .collect();
