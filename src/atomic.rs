@@ -59,10 +59,17 @@ mod tests {
         let dir = tempfile::tempdir().unwrap();
         let path = dir.path().join("a.yaml");
         write_file(&path, b"one", false).unwrap();
-        assert!(matches!(write_file(&path, b"two", false), Err(WriteError::Exists(_))));
+        assert!(matches!(
+            write_file(&path, b"two", false),
+            Err(WriteError::Exists(_))
+        ));
         assert_eq!(std::fs::read(&path).unwrap(), b"one");
         write_file(&path, b"two", true).unwrap();
         assert_eq!(std::fs::read(&path).unwrap(), b"two");
-        assert_eq!(std::fs::read_dir(dir.path()).unwrap().count(), 1, "no temp file left");
+        assert_eq!(
+            std::fs::read_dir(dir.path()).unwrap().count(),
+            1,
+            "no temp file left"
+        );
     }
 }

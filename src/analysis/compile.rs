@@ -9,7 +9,7 @@ use rustc_hash::FxHashMap;
 use super::expand::{CompiledSynonym, Phrase, SynonymTable};
 use super::surface::SurfaceStage;
 use super::{Analyzer, exempt, lemma, stem, stopword};
-use crate::rules::{Diagnostic, ExemptKind, Ruleset, RulesError, SynonymKind, Term};
+use crate::rules::{Diagnostic, ExemptKind, RulesError, Ruleset, SynonymKind, Term};
 
 pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
     let surface = SurfaceStage::from_pipeline(&ruleset.pipeline);
@@ -58,9 +58,7 @@ pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
                     Diagnostic::new(
                         &rule.form.origin.file,
                         Some(rule.form.origin.position()),
-                        format!(
-                            "{form:?} is given two lemmas: {previous:?} and {lemma:?}",
-                        ),
+                        format!("{form:?} is given two lemmas: {previous:?} and {lemma:?}",),
                     )
                     .related(&first.origin.file, first.origin.position())
                     .help("a form has one lemma; keep the one you mean and remove the other"),
@@ -93,7 +91,10 @@ pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
                     Diagnostic::new(
                         &term.origin.file,
                         Some(term.origin.position()),
-                        format!("{:?} has no words left after stopwords are dropped", term.text),
+                        format!(
+                            "{:?} has no words left after stopwords are dropped",
+                            term.text
+                        ),
                     )
                     .help("remove it from the rule, or take its words off the stopword list"),
                 );
@@ -125,7 +126,9 @@ fn drop_empty(rules: Vec<CompiledSynonym>) -> Vec<CompiledSynonym> {
     rules
         .into_iter()
         .map(|r| match r {
-            CompiledSynonym::Equivalent(m) => CompiledSynonym::Equivalent(m.into_iter().filter(keep).collect()),
+            CompiledSynonym::Equivalent(m) => {
+                CompiledSynonym::Equivalent(m.into_iter().filter(keep).collect())
+            }
             CompiledSynonym::OneWay { from, to } => CompiledSynonym::OneWay {
                 from,
                 to: to.into_iter().filter(keep).collect(),
@@ -136,7 +139,12 @@ fn drop_empty(rules: Vec<CompiledSynonym>) -> Vec<CompiledSynonym> {
 
 /// The surface form of a term that must be one token (a stopword, an exempt term, a form
 /// or lemma).
-fn single_form(surface: &SurfaceStage, term: &Term, what: &str, diagnostics: &mut Vec<Diagnostic>) -> Option<String> {
+fn single_form(
+    surface: &SurfaceStage,
+    term: &Term,
+    what: &str,
+    diagnostics: &mut Vec<Diagnostic>,
+) -> Option<String> {
     let tokens = surface.tokens(&term.text);
     match tokens.as_slice() {
         [one] => Some(one.form.clone()),

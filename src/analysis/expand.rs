@@ -198,7 +198,12 @@ fn phrase_of(tokens: &[(u32, &str)]) -> Phrase {
     }
 }
 
-fn add_alternative(alternatives: &mut Vec<Alternative>, phrase: &Phrase, rule: usize, own: &Phrase) {
+fn add_alternative(
+    alternatives: &mut Vec<Alternative>,
+    phrase: &Phrase,
+    rule: usize,
+    own: &Phrase,
+) {
     if let Some(existing) = alternatives.iter_mut().find(|a| &a.phrase == phrase) {
         // The query's own words stay rule-free; another rule offering the same phrase is
         // recorded so attribution sees every rule involved.
@@ -243,7 +248,11 @@ mod tests {
         assert_eq!(e[0].alternatives[1].phrase, p(&["tram"]));
         assert_eq!(e[1].alternatives.len(), 2);
         let back = table.expand(&[(0, "elev")]);
-        assert_eq!(back[0].alternatives.len(), 1, "one-way rules do not reverse");
+        assert_eq!(
+            back[0].alternatives.len(),
+            1,
+            "one-way rules do not reverse"
+        );
     }
 
     #[test]
@@ -267,7 +276,11 @@ mod tests {
             CompiledSynonym::Equivalent(vec![p(&["chang"]), p(&["amend"])]),
         ]);
         let e = table.expand(&[(0, "chang")]);
-        let alts: Vec<String> = e[0].alternatives.iter().map(|a| a.phrase.display()).collect();
+        let alts: Vec<String> = e[0]
+            .alternatives
+            .iter()
+            .map(|a| a.phrase.display())
+            .collect();
         assert_eq!(alts, ["chang", "transfer", "amend"]);
     }
 }

@@ -14,7 +14,9 @@ impl Lemmas {
     }
 
     pub fn lookup(&self, form: &str) -> Option<(&str, usize)> {
-        self.map.get(form).map(|(lemma, rule)| (lemma.as_str(), *rule))
+        self.map
+            .get(form)
+            .map(|(lemma, rule)| (lemma.as_str(), *rule))
     }
 
     pub fn len(&self) -> usize {

@@ -8,8 +8,8 @@
 //! nothing on the hot path (the unit observer) and records a [`trace::Trace`] for people.
 
 mod compile;
-pub mod expand;
 pub mod exempt;
+pub mod expand;
 pub mod fold;
 pub mod lemma;
 pub mod lowercase;
@@ -29,7 +29,7 @@ use serde::Serialize;
 pub use expand::{Alternative, CompiledSynonym, Expansion, Phrase, SynonymTable};
 pub use surface::{SurfaceStage, SurfaceToken};
 
-use crate::rules::{self, Origin, RuleMeta, Ruleset, RulesError};
+use crate::rules::{self, Origin, RuleMeta, RulesError, Ruleset};
 
 /// A rule that a stage applied: an index into the ruleset's lists, or its stopword list.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize)]
@@ -161,7 +161,11 @@ impl Analyzer {
     }
 
     /// Steps 4–7, reporting each step to `observer`.
-    pub fn key_with<'a, O: Observer>(&'a self, form: &'a str, observer: &mut O) -> Option<Cow<'a, str>> {
+    pub fn key_with<'a, O: Observer>(
+        &'a self,
+        form: &'a str,
+        observer: &mut O,
+    ) -> Option<Cow<'a, str>> {
         if self.stopwords.is_stopword(form) {
             observer.step(Stage::Stopword, "", Some(RuleRef::Stopwords), "dropped");
             return None;
@@ -169,16 +173,35 @@ impl Analyzer {
         Some(self.key_after_stopwords(form, observer))
     }
 
-    fn key_after_stopwords<'a, O: Observer>(&'a self, form: &'a str, observer: &mut O) -> Cow<'a, str> {
+    fn key_after_stopwords<'a, O: Observer>(
+        &'a self,
+        form: &'a str,
+        observer: &mut O,
+    ) -> Cow<'a, str> {
         if let Some(rule) = self.exemptions.rule_for(form) {
-            observer.step(Stage::Exempt, form, Some(RuleRef::Exempt(rule)), "exempt: kept as written");
+            observer.step(
+                Stage::Exempt,
+                form,
+                Some(RuleRef::Exempt(rule)),
+                "exempt: kept as written",
+            );
             return Cow::Borrowed(form);
         }
         let lemma = match self.lemmas.lookup(form) {
             Some((lemma, rule)) => {
-                observer.step(Stage::Lemma, lemma, Some(RuleRef::Lemma(rule)), "irregular form replaced by its lemma");
+                observer.step(
+                    Stage::Lemma,
+                    lemma,
+                    Some(RuleRef::Lemma(rule)),
+                    "irregular form replaced by its lemma",
+                );
                 if let Some(rule) = self.exemptions.rule_for(lemma) {
-                    observer.step(Stage::Stem, lemma, Some(RuleRef::Exempt(rule)), "the lemma is exempt: not stemmed");
+                    observer.step(
+                        Stage::Stem,
+                        lemma,
+                        Some(RuleRef::Exempt(rule)),
+                        "the lemma is exempt: not stemmed",
+                    );
                     return Cow::Borrowed(lemma);
                 }
                 lemma
@@ -188,7 +211,11 @@ impl Analyzer {
         match &self.stem {
             Some(stem) => {
                 let key = stem.stem(lemma);
-                let note = if key == lemma { "unchanged by the stemmer" } else { "stemmed" };
+                let note = if key == lemma {
+                    "unchanged by the stemmer"
+                } else {
+                    "stemmed"
+                };
                 observer.step(Stage::Stem, &key, None, note);
                 key
             }
@@ -255,7 +282,9 @@ impl Analyzer {
     pub fn rule_label(&self, rule: RuleRef) -> String {
         match rule {
             RuleRef::Stopwords => "stopwords".to_string(),
-            _ => self.rule_meta(rule).map_or_else(|| "?".into(), RuleMeta::label),
+            _ => self
+                .rule_meta(rule)
+                .map_or_else(|| "?".into(), RuleMeta::label),
         }
     }
 

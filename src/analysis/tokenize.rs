@@ -52,7 +52,9 @@ mod tests {
 
     fn words(t: &Tokenize, text: &str) -> Vec<(String, u32)> {
         let mut out = Vec::new();
-        t.for_each(text, |s| out.push((text[s.from..s.to].to_string(), s.position)));
+        t.for_each(text, |s| {
+            out.push((text[s.from..s.to].to_string(), s.position))
+        });
         out
     }
 
@@ -67,7 +69,10 @@ mod tests {
     #[test]
     fn a_pattern_decides_what_a_token_is() {
         let t = Tokenize::Pattern(Regex::new("[a-z]+-[a-z]+|[a-z]+").unwrap());
-        let texts: Vec<String> = words(&t, "step-free access").into_iter().map(|w| w.0).collect();
+        let texts: Vec<String> = words(&t, "step-free access")
+            .into_iter()
+            .map(|w| w.0)
+            .collect();
         assert_eq!(texts, ["step-free", "access"]);
     }
 }

@@ -11,7 +11,9 @@ use super::{CliError, print};
 
 /// Bring WordNet's irregular forms ("inflected base" per line) in as lemma overrides.
 #[derive(Debug, clap::Args)]
-#[command(after_help = "Examples:\n  lexdelta import --pos verb --out rules/irregular-verbs.yaml\n  lexdelta import --pos noun,verb,adj --list-skipped --out /tmp/all.yaml\n\nThe file is new and written atomically; an existing file is replaced only with --force.\nForms WordNet gives several bases are skipped and listed, never guessed.")]
+#[command(
+    after_help = "Examples:\n  lexdelta import --pos verb --out rules/irregular-verbs.yaml\n  lexdelta import --pos noun,verb,adj --list-skipped --out /tmp/all.yaml\n\nThe file is new and written atomically; an existing file is replaced only with --force.\nForms WordNet gives several bases are skipped and listed, never guessed."
+)]
 pub struct Args {
     /// The directory holding WordNet's *.exc files.
     #[arg(long, default_value = "/usr/share/wordnet")]

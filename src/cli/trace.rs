@@ -10,7 +10,9 @@ use super::{CliError, print};
 
 /// Show each token of TEXT going through every stage, with the rule that fired.
 #[derive(Debug, clap::Args)]
-#[command(after_help = "Examples:\n  lexdelta trace 'Children rode the light rail'\n  lexdelta trace --side index --rules demo-corpus/proposed 'left luggage'\n  lexdelta trace --format json 'stroller'")]
+#[command(
+    after_help = "Examples:\n  lexdelta trace 'Children rode the light rail'\n  lexdelta trace --side index --rules demo-corpus/proposed 'left luggage'\n  lexdelta trace --format json 'stroller'"
+)]
 pub struct Args {
     /// The ruleset directory.
     #[arg(long, default_value = "rules")]

@@ -203,14 +203,21 @@ fn render(list: &ExceptionList, options: &ImportOptions, result: &ImportResult) 
         result.not_one_word.len(),
         result.self_mapped.len()
     );
-    out.push_str("# Review before use: every override here replaces the stemmer's view of a word.\n");
+    out.push_str(
+        "# Review before use: every override here replaces the stemmer's view of a word.\n",
+    );
     out.push_str("format: 1\nrevision: 1\n");
     if result.written.is_empty() {
         out.push_str("lemmas: []\n");
     } else {
         out.push_str("lemmas:\n");
         for (form, lemma) in &result.written {
-            let _ = writeln!(out, "  - {{ form: {}, lemma: {} }}", quote(form), quote(lemma));
+            let _ = writeln!(
+                out,
+                "  - {{ form: {}, lemma: {} }}",
+                quote(form),
+                quote(lemma)
+            );
         }
     }
     if !result.ambiguous.is_empty() {
@@ -245,8 +252,10 @@ mod tests {
 
     fn list(verb: &str, noun: &str) -> ExceptionList {
         let mut l = ExceptionList::default();
-        l.add(Path::new("verb.exc"), PartOfSpeech::Verb, verb).unwrap();
-        l.add(Path::new("noun.exc"), PartOfSpeech::Noun, noun).unwrap();
+        l.add(Path::new("verb.exc"), PartOfSpeech::Verb, verb)
+            .unwrap();
+        l.add(Path::new("noun.exc"), PartOfSpeech::Noun, noun)
+            .unwrap();
         l
     }
 
@@ -259,7 +268,10 @@ mod tests {
         let r = build_lemma_file(&l, &ImportOptions::default());
         assert_eq!(
             r.written,
-            [("left".into(), "leave".into()), ("rode".into(), "ride".into())]
+            [
+                ("left".into(), "leave".into()),
+                ("rode".into(), "ride".into())
+            ]
         );
         assert_eq!(r.ambiguous.len(), 2, "{:?}", r.ambiguous); // axes, bore
         assert_eq!(r.not_one_word, ["bad_hats"]);

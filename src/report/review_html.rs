@@ -132,6 +132,9 @@ fn label_colour(label: Label) -> &'static str {
     }
 }
 
+/// A histogram bucket: its label and which differences fall in it.
+type Bucket = (&'static str, fn(i64) -> bool);
+
 /// A histogram of (matches after − matches before) over the queries that were run.
 fn match_change_chart(out: &mut String, r: &ReviewReport) {
     let deltas: Vec<i64> = r
@@ -147,7 +150,7 @@ fn match_change_chart(out: &mut String, r: &ReviewReport) {
         return;
     }
     // Buckets: ≤−10, −9..−1 grouped, 0, 1..9, ≥10 — read at a glance.
-    let buckets: [(&str, fn(i64) -> bool); 7] = [
+    let buckets: [Bucket; 7] = [
         ("≤ −10", |d| d <= -10),
         ("−9…−2", |d| (-9..=-2).contains(&d)),
         ("−1", |d| d == -1),

@@ -20,8 +20,16 @@ pub fn render(trace: &Trace, style: Style) -> String {
             Side::Query => "query",
         },
         p.stemmer,
-        if p.lowercase { "lowercase" } else { "case kept" },
-        if p.fold_accents { "accents folded" } else { "accents kept" },
+        if p.lowercase {
+            "lowercase"
+        } else {
+            "case kept"
+        },
+        if p.fold_accents {
+            "accents folded"
+        } else {
+            "accents kept"
+        },
         p.stopwords,
         p.tokenizer
     );
@@ -68,7 +76,11 @@ pub fn render(trace: &Trace, style: Style) -> String {
             };
             let width = if c == 0 { widths[c] } else { widths[c] + 2 };
             if c == 0 {
-                line.push_str(&format!("{}{}  ", " ".repeat(widths[0] - cell.len()), shown));
+                line.push_str(&format!(
+                    "{}{}  ",
+                    " ".repeat(widths[0] - cell.len()),
+                    shown
+                ));
             } else {
                 line.push_str(&pad(&shown, cell, width));
             }

@@ -95,7 +95,11 @@ impl fmt::Display for Diagnostic {
             write!(f, "\n{pad} |\n{number} | {line}\n{pad} | {caret_pad}^")?;
         }
         if let Some((file, at)) = &self.related {
-            write!(f, "\n  note: first defined at {file}:{}:{}", at.line, at.column)?;
+            write!(
+                f,
+                "\n  note: first defined at {file}:{}:{}",
+                at.line, at.column
+            )?;
         }
         if let Some(help) = &self.help {
             write!(f, "\n  help: {help}")?;

@@ -8,8 +8,8 @@ use regex::Regex;
 use super::yaml::{Node, Position, Value};
 use super::{
     Diagnostic, ExemptKind, Exemption, FORMAT_VERSION, GateSettings, Language, LemmaOverride,
-    Level, LintOverride, LintSettings, Origin, Pipeline, RuleMeta, SynonymKind, SynonymRule,
-    Term, TokenPattern,
+    Level, LintOverride, LintSettings, Origin, Pipeline, RuleMeta, SynonymKind, SynonymRule, Term,
+    TokenPattern,
 };
 use crate::severity::Severity;
 
@@ -269,7 +269,11 @@ impl<'a> Walker<'a> {
             }
         };
         if text.is_empty() {
-            self.error(node.at, format!("{what} is empty"), Some("remove it".into()));
+            self.error(
+                node.at,
+                format!("{what} is empty"),
+                Some("remove it".into()),
+            );
             return None;
         }
         Some(Term {
@@ -390,7 +394,10 @@ impl<'a> Walker<'a> {
                 other => {
                     self.error(
                         n.at,
-                        format!("`stopwords` must be a list of words, found {}", other.kind()),
+                        format!(
+                            "`stopwords` must be a list of words, found {}",
+                            other.kind()
+                        ),
                         Some("write for example `stopwords: [the, of, and]`".into()),
                     );
                     Vec::new()

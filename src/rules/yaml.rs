@@ -267,7 +267,10 @@ mod tests {
     #[test]
     fn an_empty_file_is_null() {
         assert!(matches!(parse("").unwrap().value, Value::Null));
-        assert!(matches!(parse("# only a comment\n").unwrap().value, Value::Null));
+        assert!(matches!(
+            parse("# only a comment\n").unwrap().value,
+            Value::Null
+        ));
     }
 
     #[test]
