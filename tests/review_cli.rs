@@ -16,20 +16,6 @@ fn lexdelta(dir: &Path) -> Command {
     cmd
 }
 
-fn demo_args() -> Vec<String> {
-    let d = |f: &str| format!("{ROOT}/demo-corpus/{f}");
-    vec![
-        "--corpus".into(),
-        d("documents.jsonl"),
-        "--queries".into(),
-        d("queries.jsonl"),
-        "--judgments".into(),
-        d("judgments.qrels"),
-        "--judged-queries".into(),
-        d("judged-queries.tsv"),
-    ]
-}
-
 #[test]
 fn the_demo_change_is_blocked_with_the_planted_harms_named() {
     let dir = tempfile::tempdir().unwrap();
