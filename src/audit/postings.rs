@@ -95,9 +95,12 @@ fn collect_document(
     for text in texts {
         surface.for_each(text, |_, form| {
             if wanted.contains(&*form) {
-                let list = map.entry(form.into_owned()).or_default();
-                if list.last() != Some(&id) {
-                    list.push(id);
+                match map.get_mut(&*form) {
+                    Some(list) if list.last() == Some(&id) => {}
+                    Some(list) => list.push(id),
+                    None => {
+                        map.insert(form.into_owned(), vec![id]);
+                    }
                 }
             }
         });

@@ -427,3 +427,64 @@ impl<'de> de::Deserialize<'de> for IgnoredKey {
         d.deserialize_any(IgnoredAny).map(|_| IgnoredKey)
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn streamed(path: &Path, threads: usize) -> Result<Vec<(usize, Vec<String>)>, String> {
+        let (parts, n) = for_each_document(
+            path,
+            &DocOptions::default(),
+            threads,
+            Vec::new,
+            |out: &mut Vec<(usize, Vec<String>)>, i, texts| {
+                out.push((i, texts.iter().map(|t| t.to_string()).collect()))
+            },
+        )
+        .map_err(|e| e.to_string())?;
+        let mut all: Vec<_> = parts.into_iter().flatten().collect();
+        all.sort();
+        assert_eq!(all.len(), n);
+        Ok(all)
+    }
+
+    #[test]
+    fn streaming_reads_what_read_documents_reads_and_fails_the_same_way() {
+        let dir = tempfile::tempdir().unwrap();
+        let p = dir.path().join("d.jsonl");
+        std::fs::write(
+            &p,
+            "{\"id\":\"a\",\"title\":\"Caf\\u00e9 \\\"x\\\"\",\"body\":null,\"n\":[1,{\"k\":2.5}]}\r\n\
+             \n   \n{\"body\":\"b1\",\"id\":7,\"title\":3}\n{\"id\":\"c\",\"body\":\"x\",\"body\":\"y\"}",
+        )
+        .unwrap();
+        let expected: Vec<Vec<String>> = read_documents(&p, &DocOptions::default())
+            .unwrap()
+            .documents
+            .into_iter()
+            .map(|d| d.texts)
+            .collect();
+        for threads in [1, 2, 3] {
+            let got = streamed(&p, threads).unwrap();
+            let numbers: Vec<usize> = got.iter().map(|g| g.0).collect();
+            assert_eq!(numbers, [0, 3, 4]);
+            let texts: Vec<Vec<String>> = got.into_iter().map(|g| g.1).collect();
+            assert_eq!(texts, expected);
+        }
+        for bad in [
+            "{\"id\":\"a\"}\nnot json\n",
+            "{\"id\":\"a\"}\n{\"id\":\"a\"}\n",
+            "{\"id\":\"a\"}\n[1]\n",
+            "{\"title\":\"t\"}\n",
+            "{\"id\":\"a\",\"x\":1e999}\n",
+        ] {
+            std::fs::write(&p, bad).unwrap();
+            let want = read_documents(&p, &DocOptions::default()).unwrap_err();
+            assert_eq!(streamed(&p, 2).unwrap_err(), want.to_string(), "{bad:?}");
+        }
+        std::fs::write(&p, b"{\"id\":\"a\"}\n{\"id\":\"b\",\"body\":\"\xff\"}\n").unwrap();
+        let want = read_documents(&p, &DocOptions::default()).unwrap_err();
+        assert_eq!(streamed(&p, 2).unwrap_err(), want.to_string());
+    }
+}
