@@ -76,12 +76,19 @@ pub fn estimate_effect(
         .into_iter()
         .map(|(k, forms)| (k, postings.union(forms)))
         .collect();
-    let after_of = |form: &str| -> &[u32] {
-        match suggestion.changed.get(form) {
-            Some(key) => &moved_docs[key.as_str()],
-            None => &kept_after,
-        }
-    };
+    // A term's documents after the change depend only on where its form goes (kept under
+    // the key, or moved to a new key), so gains and losses are computed once per target.
+    let target_of = |form: &str| suggestion.changed.get(form).map(String::as_str);
+    let mut changes: BTreeMap<Option<&str>, (Vec<u32>, Vec<u32>)> = BTreeMap::new();
+    for form in &group {
+        changes.entry(target_of(form)).or_insert_with_key(|target| {
+            let after: &[u32] = match target {
+                Some(key) => &moved_docs[key],
+                None => &kept_after,
+            };
+            (difference(after, &before), difference(&before, after))
+        });
+    }
     let members: FxHashSet<&str> = group.iter().copied().collect();
     let mut queries = Vec::new();
     for entry in &log.queries {
@@ -91,28 +98,40 @@ pub fn estimate_effect(
                 terms.push(form.into_owned());
             }
         });
-        let mut gained: FxHashSet<u32> = FxHashSet::default();
-        let mut lost: FxHashSet<u32> = FxHashSet::default();
+        let mut targets: Vec<Option<&str>> = Vec::new();
         let mut changed_terms = Vec::new();
         for t in terms {
-            let after = after_of(&t);
-            let g = difference(after, &before);
-            let l = difference(&before, after);
+            let target = target_of(&t);
+            let (g, l) = &changes[&target];
             if !g.is_empty() || !l.is_empty() {
-                gained.extend(g);
-                lost.extend(l);
+                if !targets.contains(&target) {
+                    targets.push(target);
+                }
                 changed_terms.push(t);
             }
         }
-        if !changed_terms.is_empty() {
-            queries.push(QueryEffect {
-                query: entry.query.clone(),
-                searches: entry.count,
-                terms: changed_terms,
-                gained: gained.len(),
-                lost: lost.len(),
-            });
+        if changed_terms.is_empty() {
+            continue;
         }
+        let (gained, lost) = match targets.as_slice() {
+            [one] => (changes[one].0.len(), changes[one].1.len()),
+            many => {
+                let mut gained: FxHashSet<u32> = FxHashSet::default();
+                let mut lost: FxHashSet<u32> = FxHashSet::default();
+                for t in many {
+                    gained.extend(&changes[t].0);
+                    lost.extend(&changes[t].1);
+                }
+                (gained.len(), lost.len())
+            }
+        };
+        queries.push(QueryEffect {
+            query: entry.query.clone(),
+            searches: entry.count,
+            terms: changed_terms,
+            gained,
+            lost,
+        });
     }
     queries.sort_by(|a, b| {
         b.searches
@@ -125,10 +144,17 @@ pub fn estimate_effect(
     }
 }
 
-/// Sorted-list difference `a \ b`.
+/// Sorted-list difference `a \ b`, in one merge.
 fn difference(a: &[u32], b: &[u32]) -> Vec<u32> {
-    a.iter()
-        .copied()
-        .filter(|x| b.binary_search(x).is_err())
-        .collect()
+    let mut out = Vec::new();
+    let mut j = 0;
+    for &x in a {
+        while j < b.len() && b[j] < x {
+            j += 1;
+        }
+        if j == b.len() || b[j] != x {
+            out.push(x);
+        }
+    }
+    out
 }

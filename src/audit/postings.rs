@@ -2,16 +2,20 @@
 //! restricted to the forms an effect estimate needs, so memory stays small however large
 //! the corpus is.
 
+use std::path::Path;
+
 use rustc_hash::{FxHashMap, FxHashSet};
 
 use crate::analysis::SurfaceStage;
-use crate::corpus::Document;
+use crate::corpus::{CorpusError, DocOptions, Document, for_each_document, for_each_in_memory};
 
 /// Form → sorted, distinct document indexes.
 #[derive(Clone, Debug, Default)]
 pub struct Postings {
     map: FxHashMap<String, Vec<u32>>,
 }
+
+type Part = FxHashMap<String, Vec<u32>>;
 
 impl Postings {
     /// Collects postings for `wanted` on `threads` threads.
@@ -24,26 +28,41 @@ impl Postings {
         if wanted.is_empty() {
             return Postings::default();
         }
-        let chunk = documents.len().div_ceil(threads.max(1)).max(1);
-        let parts: Vec<FxHashMap<String, Vec<u32>>> = std::thread::scope(|scope| {
-            let handles: Vec<_> = documents
-                .chunks(chunk)
-                .enumerate()
-                .map(|(n, part)| {
-                    scope.spawn(move || collect_part(surface, part, n * chunk, wanted))
-                })
-                .collect();
-            handles
-                .into_iter()
-                .map(|h| h.join().expect("a postings thread panicked"))
-                .collect()
+        let parts = for_each_in_memory(documents, threads, Part::default, |part, i, texts| {
+            collect_document(surface, wanted, part, i, texts)
         });
-        let mut map: FxHashMap<String, Vec<u32>> = FxHashMap::default();
-        // Parts cover consecutive document ranges, so appending keeps each list sorted.
+        Self::merge(parts)
+    }
+
+    /// Collects postings for `wanted` from the documents of `path`, streaming (see
+    /// [`for_each_document`]); document numbers are the reader's.
+    pub fn collect_file(
+        surface: &SurfaceStage,
+        path: &Path,
+        options: &DocOptions,
+        wanted: &FxHashSet<String>,
+        threads: usize,
+    ) -> Result<Self, CorpusError> {
+        if wanted.is_empty() {
+            return Ok(Postings::default());
+        }
+        let (parts, _) =
+            for_each_document(path, options, threads, Part::default, |part, i, texts| {
+                collect_document(surface, wanted, part, i, texts)
+            })?;
+        Ok(Self::merge(parts))
+    }
+
+    /// Threads saw disjoint documents, so concatenating and sorting keeps lists distinct.
+    fn merge(parts: Vec<Part>) -> Self {
+        let mut map: Part = FxHashMap::default();
         for part in parts {
             for (form, docs) in part {
                 map.entry(form).or_default().extend(docs);
             }
+        }
+        for docs in map.values_mut() {
+            docs.sort_unstable();
         }
         Postings { map }
     }
@@ -65,25 +84,25 @@ impl Postings {
     }
 }
 
-fn collect_part(
+fn collect_document(
     surface: &SurfaceStage,
-    documents: &[Document],
-    first: usize,
     wanted: &FxHashSet<String>,
-) -> FxHashMap<String, Vec<u32>> {
-    let mut map: FxHashMap<String, Vec<u32>> = FxHashMap::default();
-    for (i, doc) in documents.iter().enumerate() {
-        let id = (first + i) as u32;
-        for text in &doc.texts {
-            surface.for_each(text, |_, form| {
-                if wanted.contains(&*form) {
-                    let list = map.entry(form.into_owned()).or_default();
-                    if list.last() != Some(&id) {
-                        list.push(id);
+    map: &mut Part,
+    i: usize,
+    texts: &[&str],
+) {
+    let id = i as u32;
+    for text in texts {
+        surface.for_each(text, |_, form| {
+            if wanted.contains(&*form) {
+                match map.get_mut(&*form) {
+                    Some(list) if list.last() == Some(&id) => {}
+                    Some(list) => list.push(id),
+                    None => {
+                        map.insert(form.into_owned(), vec![id]);
                     }
                 }
-            });
-        }
+            }
+        });
     }
-    map
 }

@@ -2,6 +2,9 @@
 //! shown group and, with a query log, its effect. One function computes it; renderers in
 //! `report::collisions_*` turn it into text, JSON or CSV.
 
+use std::convert::Infallible;
+use std::path::Path;
+
 use rustc_hash::FxHashSet;
 use serde::Serialize;
 
@@ -10,9 +13,9 @@ use super::effect::{self, Effect};
 use super::morphy::Morphy;
 use super::postings::Postings;
 use super::suggest::{self, Suggestion};
-use super::vocabulary::Vocabulary;
+use super::vocabulary::{DocumentCounts, Vocabulary};
 use crate::analysis::Analyzer;
-use crate::corpus::{Corpus, QueryLog};
+use crate::corpus::{Corpus, CorpusError, DocOptions, QueryLog};
 
 /// How much to compute.
 #[derive(Clone, Debug)]
@@ -58,7 +61,7 @@ pub struct CollisionReport {
     pub collisions: Vec<RankedCollision>,
 }
 
-/// Builds the report.
+/// Builds the report from documents in memory.
 pub fn collision_report(
     analyzer: &Analyzer,
     corpus: &Corpus,
@@ -68,6 +71,62 @@ pub fn collision_report(
 ) -> CollisionReport {
     let threads = options.threads.max(1);
     let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, log, threads);
+    let postings = |wanted: &FxHashSet<String>| -> Result<Postings, Infallible> {
+        Ok(Postings::collect(
+            analyzer.surface(),
+            &corpus.documents,
+            wanted,
+            threads,
+        ))
+    };
+    match assemble(
+        analyzer,
+        vocabulary,
+        &corpus.source,
+        log,
+        morphy,
+        options,
+        postings,
+    ) {
+        Ok(report) => report,
+        Err(never) => match never {},
+    }
+}
+
+/// Builds the report from a corpus file without holding it in memory: `counts` come from
+/// [`DocumentCounts::from_file`] on the same file, which is read once more, streaming, for
+/// the postings of the shown groups. The report is the one [`collision_report`] gives for
+/// `read_documents(path, doc_options)`.
+pub fn collision_report_from_file(
+    analyzer: &Analyzer,
+    counts: DocumentCounts,
+    path: &Path,
+    doc_options: &DocOptions,
+    log: Option<&QueryLog>,
+    morphy: &Morphy,
+    options: &CollisionOptions,
+) -> Result<CollisionReport, CorpusError> {
+    let threads = options.threads.max(1);
+    let vocabulary = Vocabulary::from_counts(analyzer.surface(), counts, log);
+    let postings = |wanted: &FxHashSet<String>| {
+        Postings::collect_file(analyzer.surface(), path, doc_options, wanted, threads)
+    };
+    let source = path.display().to_string();
+    assemble(
+        analyzer, vocabulary, &source, log, morphy, options, postings,
+    )
+}
+
+fn assemble<E>(
+    analyzer: &Analyzer,
+    vocabulary: Vocabulary,
+    source: &str,
+    log: Option<&QueryLog>,
+    morphy: &Morphy,
+    options: &CollisionOptions,
+    postings: impl FnOnce(&FxHashSet<String>) -> Result<Postings, E>,
+) -> Result<CollisionReport, E> {
+    let threads = options.threads.max(1);
     let found = collisions::find(analyzer, &vocabulary, morphy, threads);
     let index = KeyIndex {
         keyed: &found.keyed,
@@ -87,15 +146,16 @@ pub fn collision_report(
         for s in suggestions.iter().flatten() {
             effect::forms_needed(s, &index, &mut wanted);
         }
-        let postings = Postings::collect(analyzer.surface(), &corpus.documents, &wanted, threads);
-        suggestions
+        let postings = postings(&wanted)?;
+        Ok(suggestions
             .iter()
             .map(|s| {
                 s.as_ref()
                     .map(|s| effect::estimate_effect(s, &index, &postings, analyzer.surface(), log))
             })
-            .collect::<Vec<_>>()
+            .collect::<Vec<_>>())
     });
+    let effects = effects.transpose()?;
     let collisions = shown
         .into_iter()
         .zip(suggestions)
@@ -107,9 +167,9 @@ pub fn collision_report(
             effect: effects.as_ref().and_then(|e| e[i].clone()),
         })
         .collect();
-    CollisionReport {
+    Ok(CollisionReport {
         ruleset: analyzer.ruleset().source.clone(),
-        corpus: corpus.source.clone(),
+        corpus: source.to_string(),
         query_log: log.map(|l| l.source.clone()),
         documents: vocabulary.documents,
         queries: vocabulary.queries,
@@ -118,5 +178,5 @@ pub fn collision_report(
         groups: found.groups,
         risky: found.collisions.len(),
         collisions,
-    }
+    })
 }

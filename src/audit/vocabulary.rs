@@ -7,10 +7,14 @@
 //! are merged at the end. Keys are not computed here: each distinct form is keyed once,
 //! later, instead of once per occurrence.
 
+use std::path::Path;
+
 use rustc_hash::FxHashMap;
 
 use crate::analysis::SurfaceStage;
-use crate::corpus::{Document, QueryLog};
+use crate::corpus::{
+    CorpusError, DocOptions, Document, QueryLog, for_each_document, for_each_in_memory,
+};
 
 /// One distinct surface form.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -36,6 +40,47 @@ pub struct Vocabulary {
 /// Per-thread counts: form → (document frequency, last document counted).
 type Counts = FxHashMap<Box<str>, (u64, usize)>;
 
+/// Document frequencies of every form, before the query log is added.
+#[derive(Clone, Debug, Default)]
+pub struct DocumentCounts {
+    merged: Merged,
+    documents: usize,
+}
+
+impl DocumentCounts {
+    /// Counts `documents` on `threads` threads.
+    pub fn from_documents(surface: &SurfaceStage, documents: &[Document], threads: usize) -> Self {
+        let tables = for_each_in_memory(documents, threads, Counts::default, |counts, i, texts| {
+            count_document(surface, counts, i, texts)
+        });
+        DocumentCounts {
+            merged: merge(tables),
+            documents: documents.len(),
+        }
+    }
+
+    /// Counts the documents of `path` as [`crate::corpus::read_documents`] would read
+    /// them, streaming (see [`for_each_document`]).
+    pub fn from_file(
+        surface: &SurfaceStage,
+        path: &Path,
+        options: &DocOptions,
+        threads: usize,
+    ) -> Result<Self, CorpusError> {
+        let (tables, documents) = for_each_document(
+            path,
+            options,
+            threads,
+            Counts::default,
+            |counts, i, texts| count_document(surface, counts, i, texts),
+        )?;
+        Ok(DocumentCounts {
+            merged: merge(tables),
+            documents,
+        })
+    }
+}
+
 impl Vocabulary {
     /// Builds the vocabulary of `documents` (and of `queries`, when given) on `threads`
     /// threads.
@@ -45,18 +90,23 @@ impl Vocabulary {
         queries: Option<&QueryLog>,
         threads: usize,
     ) -> Self {
-        let chunk = documents.len().div_ceil(threads.max(1)).max(1);
-        let tables: Vec<Counts> = std::thread::scope(|scope| {
-            let handles: Vec<_> = documents
-                .chunks(chunk)
-                .map(|part| scope.spawn(move || count_documents(surface, part)))
-                .collect();
-            handles
-                .into_iter()
-                .map(|h| h.join().expect("a counting thread panicked"))
-                .collect()
-        });
-        let mut merged = merge(tables);
+        Self::from_counts(
+            surface,
+            DocumentCounts::from_documents(surface, documents, threads),
+            queries,
+        )
+    }
+
+    /// The vocabulary of counted documents, with the query log's traffic added.
+    pub fn from_counts(
+        surface: &SurfaceStage,
+        counts: DocumentCounts,
+        queries: Option<&QueryLog>,
+    ) -> Self {
+        let DocumentCounts {
+            mut merged,
+            documents,
+        } = counts;
         let (queries_n, searches) = match queries {
             Some(log) => {
                 add_queries(surface, log, &mut merged);
@@ -76,30 +126,27 @@ impl Vocabulary {
         forms.sort_unstable_by(|a, b| a.form.cmp(&b.form));
         Vocabulary {
             forms,
-            documents: documents.len(),
+            documents,
             queries: queries_n,
             searches,
         }
     }
 }
 
-fn count_documents(surface: &SurfaceStage, documents: &[Document]) -> Counts {
-    let mut counts = Counts::default();
-    for (i, doc) in documents.iter().enumerate() {
-        for text in &doc.texts {
-            surface.for_each(text, |_, form| {
-                // A probe with the borrowed form first: allocation only for a new form.
-                if let Some(slot) = counts.get_mut(&*form) {
-                    if slot.1 != i {
-                        *slot = (slot.0 + 1, i);
-                    }
-                } else {
-                    counts.insert(form.into_owned().into_boxed_str(), (1, i));
+/// Counts each form of one document once, through the "last document seen" slot.
+fn count_document(surface: &SurfaceStage, counts: &mut Counts, i: usize, texts: &[&str]) {
+    for text in texts {
+        surface.for_each(text, |_, form| {
+            // A probe with the borrowed form first: allocation only for a new form.
+            if let Some(slot) = counts.get_mut(&*form) {
+                if slot.1 != i {
+                    *slot = (slot.0 + 1, i);
                 }
-            });
-        }
+            } else {
+                counts.insert(form.into_owned().into_boxed_str(), (1, i));
+            }
+        });
     }
-    counts
 }
 
 /// form → (documents, searches, queries)

@@ -6,9 +6,10 @@ use std::process::ExitCode;
 use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
 use lexdelta::audit::morphy::Morphy;
-use lexdelta::audit::report::{CollisionOptions, collision_report};
+use lexdelta::audit::report::{CollisionOptions, collision_report_from_file};
 use lexdelta::audit::suggest::rule_file;
-use lexdelta::corpus::{DocOptions, read_documents, read_queries};
+use lexdelta::audit::vocabulary::DocumentCounts;
+use lexdelta::corpus::{DocOptions, read_queries};
 use lexdelta::report::{ColorChoice, Style, collisions_csv, collisions_json, collisions_text};
 
 use super::{CliError, print};
@@ -64,9 +65,6 @@ enum Format {
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let analyzer = Analyzer::load(&args.rules)?;
-    let corpus = read_documents(&args.corpus, &DocOptions::default())?;
-    let log = args.queries.as_deref().map(read_queries).transpose()?;
-    let morphy = Morphy::load(&args.wordnet)?;
     let mut options = CollisionOptions {
         top: Some(args.top),
         ..CollisionOptions::default()
@@ -74,7 +72,26 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     if let Some(n) = args.threads {
         options.threads = n.max(1);
     }
-    let report = collision_report(&analyzer, &corpus, log.as_ref(), &morphy, &options);
+    // The corpus is streamed, never held in memory: counted now (so its errors come
+    // first), read again later only for the postings of the shown groups.
+    let doc_options = DocOptions::default();
+    let counts = DocumentCounts::from_file(
+        analyzer.surface(),
+        &args.corpus,
+        &doc_options,
+        options.threads,
+    )?;
+    let log = args.queries.as_deref().map(read_queries).transpose()?;
+    let morphy = Morphy::load(&args.wordnet)?;
+    let report = collision_report_from_file(
+        &analyzer,
+        counts,
+        &args.corpus,
+        &doc_options,
+        log.as_ref(),
+        &morphy,
+        &options,
+    )?;
     if let Some(path) = &args.write {
         write_rules(&report, path, &args.accept, args.force)?;
     }

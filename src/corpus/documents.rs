@@ -157,40 +157,50 @@ fn read_json_lines(
         if line.trim().is_empty() {
             continue;
         }
-        let parse = |message: String| CorpusError::Parse {
-            path: path.to_path_buf(),
-            line: i + 1,
-            message,
-        };
-        let value: serde_json::Value =
-            serde_json::from_str(line).map_err(|e| parse(format!("not a JSON object: {e}")))?;
-        let object = value
-            .as_object()
-            .ok_or_else(|| parse("expected a JSON object per line".into()))?;
-        let field = |name: &str| -> Option<String> {
-            match object.get(name)? {
-                serde_json::Value::String(s) => Some(s.clone()),
-                serde_json::Value::Null => None,
-                other => Some(other.to_string()),
-            }
-        };
-        let id = field(&options.id_field).ok_or_else(|| {
-            parse(format!(
-                "no `{}` field (choose the id field with --id-field)",
-                options.id_field
-            ))
-        })?;
-        out.push(Document {
-            title: field(&options.title_field).unwrap_or_default(),
-            texts: options
-                .fields
-                .iter()
-                .map(|f| field(&f.name).unwrap_or_default())
-                .collect(),
-            id,
-        });
+        out.push(parse_json_line(path, i, line, options)?);
     }
     Ok(out)
+}
+
+/// One JSON Lines document; `i` is the 0-based line (errors name the 1-based one).
+pub(super) fn parse_json_line(
+    path: &Path,
+    i: usize,
+    line: &str,
+    options: &DocOptions,
+) -> Result<Document, CorpusError> {
+    let parse = |message: String| CorpusError::Parse {
+        path: path.to_path_buf(),
+        line: i + 1,
+        message,
+    };
+    let value: serde_json::Value =
+        serde_json::from_str(line).map_err(|e| parse(format!("not a JSON object: {e}")))?;
+    let object = value
+        .as_object()
+        .ok_or_else(|| parse("expected a JSON object per line".into()))?;
+    let field = |name: &str| -> Option<String> {
+        match object.get(name)? {
+            serde_json::Value::String(s) => Some(s.clone()),
+            serde_json::Value::Null => None,
+            other => Some(other.to_string()),
+        }
+    };
+    let id = field(&options.id_field).ok_or_else(|| {
+        parse(format!(
+            "no `{}` field (choose the id field with --id-field)",
+            options.id_field
+        ))
+    })?;
+    Ok(Document {
+        title: field(&options.title_field).unwrap_or_default(),
+        texts: options
+            .fields
+            .iter()
+            .map(|f| field(&f.name).unwrap_or_default())
+            .collect(),
+        id,
+    })
 }
 
 fn read_csv(path: &Path, text: &str, options: &DocOptions) -> Result<Vec<Document>, CorpusError> {

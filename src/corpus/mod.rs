@@ -4,7 +4,9 @@
 mod documents;
 mod error;
 mod queries;
+mod stream;
 
 pub use documents::{Corpus, DocOptions, Document, FieldSpec, Sample, read_documents};
 pub use error::CorpusError;
 pub use queries::{QueryEntry, QueryLog, read_queries};
+pub use stream::{for_each_document, for_each_in_memory};
