@@ -22,7 +22,7 @@ use std::sync::Arc;
 use std::time::Instant;
 
 use lexdelta::analysis::Analyzer;
-use lexdelta::analysis::tantivy::KeyTokenizer;
+use lexdelta::analysis::tantivy::SurfaceTokenizer;
 use lexdelta::corpus::{DocOptions, read_documents, read_queries};
 use lexdelta::index::{IndexPostings, NoProgress, build_key_index};
 use lexdelta::preview::{self, DirectKeys, PreviewInput, PreviewOptions, Scoring, Stats, retrieve};
@@ -121,7 +121,7 @@ fn main() {
             let index = Index::create_in_dir(dir.path(), schema.build()).unwrap();
             index
                 .tokenizers()
-                .register("surface", KeyTokenizer::surface(Arc::new(base.clone())));
+                .register("surface", SurfaceTokenizer::new(base.surface().clone()));
             let mut writer = index.writer::<TantivyDocument>(200_000_000).unwrap();
             for d in &corpus.documents {
                 let mut doc = TantivyDocument::default();

@@ -51,22 +51,13 @@ use tantivy::query::{BooleanQuery, Occur, PhraseQuery, Query, TermQuery};
 use tantivy::schema::{Field, IndexRecordOption};
 use tantivy::tokenizer::{Token, TokenStream, Tokenizer};
 
-use super::{Analyzer, Phrase};
+use super::{Analyzer, Phrase, SurfaceStage};
 
-/// What the tokenizer emits.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
-pub enum Emit {
-    /// Keys (steps 1–7): what an index built with the real analyzer holds.
-    Keys,
-    /// Surface forms (steps 1–3): what the shared sample index holds.
-    Surface,
-}
-
-/// A tantivy tokenizer running lexdelta's analyzer.
+/// A tantivy tokenizer emitting keys (steps 1–7): what an index built with the real
+/// analyzer holds.
 #[derive(Clone)]
 pub struct KeyTokenizer {
     analyzer: Arc<Analyzer>,
-    emit: Emit,
     tokens: Vec<Token>,
 }
 
@@ -74,52 +65,74 @@ impl KeyTokenizer {
     pub fn keys(analyzer: Arc<Analyzer>) -> Self {
         KeyTokenizer {
             analyzer,
-            emit: Emit::Keys,
-            tokens: Vec::new(),
-        }
-    }
-
-    pub fn surface(analyzer: Arc<Analyzer>) -> Self {
-        KeyTokenizer {
-            analyzer,
-            emit: Emit::Surface,
             tokens: Vec::new(),
         }
     }
 }
 
+/// A tantivy tokenizer emitting surface forms (steps 1–3): what the shared sample index
+/// holds. It needs only the surface settings, not a compiled ruleset.
+#[derive(Clone)]
+pub struct SurfaceTokenizer {
+    surface: SurfaceStage,
+    tokens: Vec<Token>,
+}
+
+impl SurfaceTokenizer {
+    pub fn new(surface: SurfaceStage) -> Self {
+        SurfaceTokenizer {
+            surface,
+            tokens: Vec::new(),
+        }
+    }
+}
+
+/// The token stream of both tokenizers: tokens collected into a reused buffer.
 pub struct KeyTokenStream<'a> {
     tokens: &'a mut Vec<Token>,
     next: usize,
+}
+
+/// Runs the surface stage over `text`, keeping the tokens `text_of` returns a text for.
+fn collect<'a>(
+    surface: &SurfaceStage,
+    text: &str,
+    tokens: &'a mut Vec<Token>,
+    mut text_of: impl FnMut(std::borrow::Cow<'_, str>) -> Option<String>,
+) -> KeyTokenStream<'a> {
+    tokens.clear();
+    surface.for_each(text, |span, form| {
+        if let Some(text) = text_of(form) {
+            tokens.push(Token {
+                offset_from: span.from,
+                offset_to: span.to,
+                position: span.position as usize,
+                text,
+                position_length: 1,
+            });
+        }
+    });
+    KeyTokenStream { tokens, next: 0 }
 }
 
 impl Tokenizer for KeyTokenizer {
     type TokenStream<'a> = KeyTokenStream<'a>;
 
     fn token_stream<'a>(&'a mut self, text: &'a str) -> KeyTokenStream<'a> {
-        self.tokens.clear();
         let analyzer = &self.analyzer;
-        let emit = self.emit;
-        let tokens = &mut self.tokens;
-        analyzer.surface().for_each(text, |span, form| {
-            let text = match emit {
-                Emit::Surface => Some(form.into_owned()),
-                Emit::Keys => analyzer.key(&form).map(|k| k.into_owned()),
-            };
-            if let Some(text) = text {
-                tokens.push(Token {
-                    offset_from: span.from,
-                    offset_to: span.to,
-                    position: span.position as usize,
-                    text,
-                    position_length: 1,
-                });
-            }
-        });
-        KeyTokenStream {
-            tokens: &mut self.tokens,
-            next: 0,
-        }
+        collect(analyzer.surface(), text, &mut self.tokens, |form| {
+            analyzer.key(&form).map(|k| k.into_owned())
+        })
+    }
+}
+
+impl Tokenizer for SurfaceTokenizer {
+    type TokenStream<'a> = KeyTokenStream<'a>;
+
+    fn token_stream<'a>(&'a mut self, text: &'a str) -> KeyTokenStream<'a> {
+        collect(&self.surface, text, &mut self.tokens, |form| {
+            Some(form.into_owned())
+        })
     }
 }
 

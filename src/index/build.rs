@@ -5,11 +5,10 @@ use std::path::Path;
 use std::sync::Arc;
 
 use tantivy::schema::{FAST, Field, IndexRecordOption, Schema, TextFieldIndexing, TextOptions};
-use tantivy::tokenizer::{Token, TokenStream, Tokenizer};
 use tantivy::{Index, TantivyDocument};
 
 use super::{IndexError, Progress};
-use crate::analysis::tantivy::KeyTokenizer;
+use crate::analysis::tantivy::{KeyTokenizer, SurfaceTokenizer};
 use crate::analysis::{Analyzer, SurfaceStage};
 use crate::corpus::Corpus;
 
@@ -46,54 +45,6 @@ fn create(dir: Option<&Path>, schema: Schema) -> Result<Index, IndexError> {
         Some(dir) => Index::create_in_dir(dir, schema)?,
         None => Index::create_in_ram(schema),
     })
-}
-
-/// The surface stage as a tantivy tokenizer (what [`KeyTokenizer::surface`] emits, without
-/// needing a compiled ruleset).
-#[derive(Clone)]
-struct SurfaceTokenizer {
-    surface: SurfaceStage,
-    tokens: Vec<Token>,
-}
-
-struct SurfaceStream<'a> {
-    tokens: &'a mut Vec<Token>,
-    next: usize,
-}
-
-impl Tokenizer for SurfaceTokenizer {
-    type TokenStream<'a> = SurfaceStream<'a>;
-
-    fn token_stream<'a>(&'a mut self, text: &'a str) -> SurfaceStream<'a> {
-        self.tokens.clear();
-        let tokens = &mut self.tokens;
-        self.surface.for_each(text, |span, form| {
-            tokens.push(Token {
-                offset_from: span.from,
-                offset_to: span.to,
-                position: span.position as usize,
-                text: form.into_owned(),
-                position_length: 1,
-            })
-        });
-        SurfaceStream {
-            tokens: &mut self.tokens,
-            next: 0,
-        }
-    }
-}
-
-impl TokenStream for SurfaceStream<'_> {
-    fn advance(&mut self) -> bool {
-        self.next += 1;
-        self.next <= self.tokens.len()
-    }
-    fn token(&self) -> &Token {
-        &self.tokens[self.next - 1]
-    }
-    fn token_mut(&mut self) -> &mut Token {
-        &mut self.tokens[self.next - 1]
-    }
 }
 
 /// The tokenizer name surface indexes register.
@@ -135,13 +86,9 @@ pub fn build_surface_index(
 
 /// Registers the surface tokenizer on an opened surface index.
 pub fn register_surface(index: &Index, surface: &SurfaceStage) {
-    index.tokenizers().register(
-        SURFACE_TOKENIZER,
-        SurfaceTokenizer {
-            surface: surface.clone(),
-            tokens: Vec::new(),
-        },
-    );
+    index
+        .tokenizers()
+        .register(SURFACE_TOKENIZER, SurfaceTokenizer::new(surface.clone()));
 }
 
 /// Indexes the keys of every document with [`KeyTokenizer::keys`]: what an index built
