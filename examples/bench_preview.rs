@@ -25,7 +25,9 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::analysis::tantivy::SurfaceTokenizer;
 use lexdelta::corpus::{DocOptions, read_documents, read_queries};
 use lexdelta::index::{IndexPostings, NoProgress, build_key_index};
-use lexdelta::preview::{self, DirectKeys, PreviewInput, PreviewOptions, Scoring, Stats, retrieve};
+use lexdelta::preview::{
+    self, DirectKeys, DocOrder, PreviewInput, PreviewOptions, Scoring, Stats, retrieve,
+};
 use lexdelta::rules::{SourceFile, load_sources};
 use tantivy::schema::{IndexRecordOption, Schema, TextFieldIndexing, TextOptions};
 use tantivy::{Index, TantivyDocument};
@@ -136,6 +138,7 @@ fn main() {
         "naive" => {
             let scoring = Scoring::default();
             let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
+            let order = DocOrder::by_id(&ids);
             let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
             let mut changed = 0;
             let mut results = Vec::new();
@@ -155,7 +158,7 @@ fn main() {
                             &stats,
                             &scoring,
                             &weights,
-                            &ids,
+                            &order,
                         )
                         .unwrap();
                         hits.iter().map(|h| (h.doc, h.score)).collect()

@@ -8,8 +8,8 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::corpus::{Corpus, DocOptions, Document, FieldSpec, QueryEntry, QueryLog};
 use lexdelta::index::{IndexPostings, NoProgress, build_key_index, build_surface_index};
 use lexdelta::preview::{
-    self, ConflatedKeys, DirectKeys, Hit, KeySource, MatchMode, PreviewInput, PreviewOptions,
-    Ranking, Scoring, Stats, SurfaceForms, retrieve,
+    self, ConflatedKeys, DirectKeys, DocOrder, Hit, KeySource, MatchMode, PreviewInput,
+    PreviewOptions, Ranking, Scoring, Stats, SurfaceForms, retrieve,
 };
 use lexdelta::rules::{SourceFile, load_sources};
 use proptest::prelude::*;
@@ -30,12 +30,12 @@ fn run_all(
     scoring: &Scoring,
 ) -> Vec<Vec<Hit>> {
     let stats = Stats::compute(source, scoring).unwrap();
-    let (ids, weights) = (ids(corpus), weights(corpus));
+    let (order, weights) = (DocOrder::by_id(&ids(corpus)), weights(corpus));
     queries
         .iter()
         .map(|q| {
             let analyzed = analyzer.analyze_query(q);
-            retrieve(&analyzed, source, &stats, scoring, &weights, &ids).unwrap()
+            retrieve(&analyzed, source, &stats, scoring, &weights, &order).unwrap()
         })
         .collect()
 }

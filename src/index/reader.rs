@@ -60,14 +60,44 @@ impl Postings {
             [] => Postings::from_pairs(Vec::new()),
             [one] => (**one).clone(),
             _ => {
-                let total = parts.iter().map(|p| p.positions.len()).sum();
-                let mut pairs = Vec::with_capacity(total);
-                for p in parts {
-                    for i in 0..p.len() {
-                        pairs.extend(p.positions_at(i).iter().map(|&pos| (p.docs[i], pos)));
-                    }
+                // Sort (document, part, index) entries, not every position: a group's
+                // members rarely share a document, and never a position.
+                let mut entries: Vec<(u32, u32, u32)> =
+                    Vec::with_capacity(parts.iter().map(|p| p.len()).sum());
+                for (k, p) in parts.iter().enumerate() {
+                    entries.extend(
+                        p.docs
+                            .iter()
+                            .enumerate()
+                            .map(|(i, &d)| (d, k as u32, i as u32)),
+                    );
                 }
-                Postings::from_pairs(pairs)
+                entries.sort_unstable();
+                let mut out = Postings {
+                    positions: Vec::with_capacity(parts.iter().map(|p| p.positions.len()).sum()),
+                    ..Postings::default()
+                };
+                let mut group = 0;
+                while group < entries.len() {
+                    let doc = entries[group].0;
+                    let start = out.positions.len();
+                    let mut end = group;
+                    while end < entries.len() && entries[end].0 == doc {
+                        let (_, k, i) = entries[end];
+                        out.positions
+                            .extend_from_slice(parts[k as usize].positions_at(i as usize));
+                        end += 1;
+                    }
+                    if end - group > 1 {
+                        out.positions[start..].sort_unstable();
+                    }
+                    out.docs.push(doc);
+                    out.tfs.push((out.positions.len() - start) as u32);
+                    out.starts.push(start as u32);
+                    group = end;
+                }
+                out.starts.push(out.positions.len() as u32);
+                out
             }
         }
     }

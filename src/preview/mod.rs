@@ -42,6 +42,15 @@
 //! the score is Σ_f weight_f · field score. A zero norm gives 0.
 //!
 //! Rankings are sorted by score, ties broken by document id, and cut at top-k.
+//!
+//! # Evaluation cost
+//!
+//! Under `all`, the documents of the rarest clause are the candidates and every further
+//! clause only looks them up in its sorted postings (galloping search), so a query with one
+//! rare and one common term costs about the rare term's postings. Under `any` and `min:N`
+//! every posting is scored into dense per-document accumulators reused across queries.
+//! Both sum a document's score in the same order (clauses in query order, fields in field
+//! order), so the two strategies cannot be told apart in the scores.
 
 mod attribution;
 mod change;
@@ -59,7 +68,7 @@ pub use attribution::{RuleIndex, Sides};
 pub use change::{ChangeSet, same_expansions, touched_keys};
 pub use keys::{ConflatedKeys, DirectKeys, KeySource, SurfaceForms};
 pub use report::*;
-pub use retrieve::{Hit, MatchMode, Ranking, Scoring, Stats, rank, retrieve};
+pub use retrieve::{DocOrder, Hit, MatchMode, Ranking, Scoring, Stats, rank, retrieve};
 
 use crate::analysis::Analyzer;
 use crate::corpus::{Corpus, QueryLog};
@@ -262,9 +271,10 @@ pub fn run(
     };
 
     let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
+    let order = DocOrder::by_id(&ids);
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
     let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery| {
-        retrieve(q, &s.keys, &s.stats, &options.scoring, &weights, &ids)
+        retrieve(q, &s.keys, &s.stats, &options.scoring, &weights, &order)
     };
 
     // Judged query texts → ids; judged texts missing from the log are run too.

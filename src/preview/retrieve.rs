@@ -3,8 +3,8 @@
 
 use std::fmt;
 use std::str::FromStr;
+use std::sync::Arc;
 
-use rustc_hash::FxHashMap;
 use serde::Serialize;
 
 use super::keys::KeySource;
@@ -151,6 +151,100 @@ impl Stats {
     }
 }
 
+/// The order that breaks score ties: each document's place when sorted by id (then by
+/// corpus position, so equal ids still order deterministically). Comparing two `u32`s
+/// instead of two id strings matters: equal scores are common (same tf, same length).
+#[derive(Clone, Debug)]
+pub struct DocOrder(Vec<u32>);
+
+impl DocOrder {
+    pub fn by_id(ids: &[String]) -> DocOrder {
+        let mut order: Vec<u32> = (0..ids.len() as u32).collect();
+        order.sort_by(|&a, &b| ids[a as usize].cmp(&ids[b as usize]).then(a.cmp(&b)));
+        let mut place = vec![0u32; ids.len()];
+        for (i, doc) in order.into_iter().enumerate() {
+            place[doc as usize] = i as u32;
+        }
+        DocOrder(place)
+    }
+
+    fn place(&self, doc: u32) -> u32 {
+        self.0[doc as usize]
+    }
+}
+
+/// Dense per-document accumulators reused across queries: a query touches a small share
+/// of the corpus, and hashing every posting was most of the retrieval time. Every slot a
+/// query sets is listed, and reset from that list, so no query pays for the whole corpus.
+#[derive(Default)]
+struct Scratch {
+    /// Per document: clauses matched and score so far (documents listed in `docs`).
+    count: Vec<u32>,
+    score: Vec<f64>,
+    docs: Vec<u32>,
+    /// Per document: the current clause's score, and whether the clause matched it.
+    clause: Vec<f64>,
+    in_clause: Vec<bool>,
+    clause_docs: Vec<u32>,
+}
+
+impl Scratch {
+    fn fit(&mut self, n: usize) {
+        if self.count.len() < n {
+            self.count.resize(n, 0);
+            self.score.resize(n, 0.0);
+            self.clause.resize(n, 0.0);
+            self.in_clause.resize(n, false);
+        }
+    }
+
+    fn add_to_clause(&mut self, doc: u32, s: f64) {
+        let d = doc as usize;
+        if !self.in_clause[d] {
+            self.in_clause[d] = true;
+            self.clause_docs.push(doc);
+        }
+        self.clause[d] += s;
+    }
+
+    /// Folds the current clause into the query's totals and clears it.
+    fn close_clause(&mut self) {
+        for &doc in &self.clause_docs {
+            let d = doc as usize;
+            if self.count[d] == 0 {
+                self.docs.push(doc);
+            }
+            self.count[d] += 1;
+            self.score[d] += self.clause[d];
+            self.clause[d] = 0.0;
+            self.in_clause[d] = false;
+        }
+        self.clause_docs.clear();
+    }
+
+    /// The documents with at least `need` clauses, and clears the totals.
+    fn take_hits(&mut self, need: usize) -> Vec<Hit> {
+        let mut hits = Vec::new();
+        for &doc in &self.docs {
+            let d = doc as usize;
+            if self.count[d] as usize >= need {
+                hits.push(Hit {
+                    doc,
+                    score: self.score[d],
+                });
+            }
+            self.count[d] = 0;
+            self.score[d] = 0.0;
+        }
+        self.docs.clear();
+        hits
+    }
+}
+
+thread_local! {
+    static SCRATCH: std::cell::RefCell<Scratch> = std::cell::RefCell::default();
+}
+
 /// Every document matching `query`, best first (ties by document id).
 pub fn retrieve(
     query: &AnalyzedQuery,
@@ -158,7 +252,7 @@ pub fn retrieve(
     stats: &Stats,
     scoring: &Scoring,
     weights: &[f64],
-    ids: &[String],
+    order: &DocOrder,
 ) -> Result<Vec<Hit>, IndexError> {
     let clauses = query.expansions.len();
     if clauses == 0 {
@@ -169,66 +263,209 @@ pub fn retrieve(
         MatchMode::Any => 1,
         MatchMode::Min(k) => k.min(clauses),
     };
-    let n = stats.num_docs as f64;
-    let mut acc: FxHashMap<u32, (usize, f64)> = FxHashMap::default();
-    for expansion in &query.expansions {
-        let mut clause: FxHashMap<u32, f64> = FxHashMap::default();
-        for (field, &weight) in weights.iter().enumerate() {
-            let tfs = clause_tf(expansion, field, source)?;
-            if tfs.is_empty() {
-                continue;
-            }
-            let df = tfs.len() as f64;
-            let lengths = source.doc_lengths(field);
-            match scoring.ranking {
-                Ranking::Bm25 => {
-                    let idf = (1.0 + (n - df + 0.5) / (df + 0.5)).ln();
-                    let avgdl = stats.avgdl[field];
-                    for (doc, tf) in tfs {
-                        let tf = tf as f64;
-                        let dl = lengths[doc as usize] as f64;
-                        let norm = if avgdl > 0.0 {
-                            1.0 - scoring.b + scoring.b * dl / avgdl
-                        } else {
-                            1.0
-                        };
-                        let part = tf * (scoring.k1 + 1.0) / (tf + scoring.k1 * norm);
-                        *clause.entry(doc).or_insert(0.0) += weight * idf * part;
-                    }
-                }
-                Ranking::Cosine => {
-                    let idf = (n / df).ln();
-                    let norms = &stats.norms.as_ref().expect("cosine stats")[field];
-                    for (doc, tf) in tfs {
-                        let norm = norms[doc as usize];
-                        let w = (1.0 + (tf as f64).ln()) * idf;
-                        let s = if norm > 0.0 { w / norm } else { 0.0 };
-                        *clause.entry(doc).or_insert(0.0) += weight * s;
-                    }
-                }
-            }
-        }
-        for (doc, s) in clause {
-            let slot = acc.entry(doc).or_insert((0, 0.0));
-            slot.0 += 1;
-            slot.1 += s;
-        }
-    }
-    let mut hits: Vec<Hit> = acc
-        .into_iter()
-        .filter(|(_, (count, _))| *count >= need)
-        .map(|(doc, (_, score))| Hit { doc, score })
-        .collect();
-    rank(&mut hits, ids);
+    let mut hits = if need == clauses {
+        retrieve_all(query, source, stats, scoring, weights)?
+    } else {
+        SCRATCH.with_borrow_mut(|scratch| {
+            scratch.fit(stats.num_docs as usize);
+            let scored = score_clauses(query, source, stats, scoring, weights, scratch);
+            // Always clear the scratch, even after an error, so the next query starts clean.
+            let hits = scratch.take_hits(need);
+            scored.map(|()| hits)
+        })?
+    };
+    rank(&mut hits, order);
     Ok(hits)
 }
 
+/// How one field scores a clause's postings: the formula with the clause's df fixed.
+struct FieldScore<'a> {
+    scoring: &'a Scoring,
+    weight: f64,
+    idf: f64,
+    avgdl: f64,
+    lengths: &'a [u32],
+    norms: Option<&'a [f64]>,
+}
+
+impl<'a> FieldScore<'a> {
+    fn new(
+        scoring: &'a Scoring,
+        stats: &'a Stats,
+        source: &'a dyn KeySource,
+        field: usize,
+        weight: f64,
+        df: usize,
+    ) -> Self {
+        let (n, df) = (stats.num_docs as f64, df as f64);
+        let (idf, norms) = match scoring.ranking {
+            Ranking::Bm25 => ((1.0 + (n - df + 0.5) / (df + 0.5)).ln(), None),
+            Ranking::Cosine => (
+                (n / df).ln(),
+                Some(stats.norms.as_ref().expect("cosine stats")[field].as_slice()),
+            ),
+        };
+        FieldScore {
+            scoring,
+            weight,
+            idf,
+            avgdl: stats.avgdl[field],
+            lengths: source.doc_lengths(field),
+            norms,
+        }
+    }
+
+    fn score(&self, doc: u32, tf: u32) -> f64 {
+        let tf = tf as f64;
+        match self.norms {
+            None => {
+                let dl = self.lengths[doc as usize] as f64;
+                let norm = if self.avgdl > 0.0 {
+                    1.0 - self.scoring.b + self.scoring.b * dl / self.avgdl
+                } else {
+                    1.0
+                };
+                let part = tf * (self.scoring.k1 + 1.0) / (tf + self.scoring.k1 * norm);
+                self.weight * self.idf * part
+            }
+            Some(norms) => {
+                let norm = norms[doc as usize];
+                let w = (1.0 + tf.ln()) * self.idf;
+                let s = if norm > 0.0 { w / norm } else { 0.0 };
+                self.weight * s
+            }
+        }
+    }
+}
+
+/// Any or min:N: every posting of every clause is scored into the dense accumulators.
+fn score_clauses(
+    query: &AnalyzedQuery,
+    source: &dyn KeySource,
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+    scratch: &mut Scratch,
+) -> Result<(), IndexError> {
+    for expansion in &query.expansions {
+        for (field, &weight) in weights.iter().enumerate() {
+            let list = match clause_tf(expansion, field, source) {
+                Ok(list) => list,
+                Err(e) => {
+                    scratch.close_clause();
+                    return Err(e);
+                }
+            };
+            if list.is_empty() {
+                continue;
+            }
+            let scorer = FieldScore::new(scoring, stats, source, field, weight, list.len());
+            for (&doc, &tf) in list.docs.iter().zip(&list.tfs) {
+                scratch.add_to_clause(doc, scorer.score(doc, tf));
+            }
+        }
+        scratch.close_clause();
+    }
+    Ok(())
+}
+
+/// All clauses must match: the candidates are the documents of the rarest clause, and each
+/// further clause only looks its candidates up (galloping through its sorted postings)
+/// instead of scoring every posting, so a frequent term costs what the rare one allows.
+/// Scores are summed in query order, field by field, exactly as [`score_clauses`] does.
+fn retrieve_all(
+    query: &AnalyzedQuery,
+    source: &dyn KeySource,
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+) -> Result<Vec<Hit>, IndexError> {
+    let lists = query
+        .expansions
+        .iter()
+        .map(|e| {
+            (0..weights.len())
+                .map(|field| clause_tf(e, field, source))
+                .collect::<Result<Vec<_>, _>>()
+        })
+        .collect::<Result<Vec<_>, _>>()?;
+    let size = |c: &Vec<Arc<Postings>>| c.iter().map(|p| p.len()).sum::<usize>();
+    let mut by_size: Vec<usize> = (0..lists.len()).collect();
+    by_size.sort_by_key(|&c| (size(&lists[c]), c));
+    let clauses = lists.len();
+    let mut candidates: Vec<u32> = lists[by_size[0]]
+        .iter()
+        .flat_map(|p| p.docs.iter().copied())
+        .collect();
+    candidates.sort_unstable();
+    candidates.dedup();
+    let mut contrib = vec![0.0f64; candidates.len() * clauses];
+    for &c in &by_size {
+        let mut matched = vec![false; candidates.len()];
+        for (field, list) in lists[c].iter().enumerate() {
+            if list.is_empty() {
+                continue;
+            }
+            let scorer = FieldScore::new(scoring, stats, source, field, weights[field], list.len());
+            let mut from = 0;
+            for (i, &doc) in candidates.iter().enumerate() {
+                from = gallop(&list.docs, from, doc);
+                if from == list.docs.len() {
+                    break;
+                }
+                if list.docs[from] == doc {
+                    contrib[i * clauses + c] += scorer.score(doc, list.tfs[from]);
+                    matched[i] = true;
+                }
+            }
+        }
+        let mut kept = 0;
+        for i in 0..candidates.len() {
+            if matched[i] {
+                candidates[kept] = candidates[i];
+                contrib.copy_within(i * clauses..(i + 1) * clauses, kept * clauses);
+                kept += 1;
+            }
+        }
+        candidates.truncate(kept);
+        contrib.truncate(kept * clauses);
+        if kept == 0 {
+            break;
+        }
+    }
+    Ok(candidates
+        .iter()
+        .enumerate()
+        .map(|(i, &doc)| Hit {
+            doc,
+            score: contrib[i * clauses..(i + 1) * clauses]
+                .iter()
+                .fold(0.0, |sum, s| sum + s),
+        })
+        .collect())
+}
+
+/// The first index at or after `from` whose document is not below `doc` (exponential then
+/// binary search, so a run of nearby lookups costs little).
+fn gallop(docs: &[u32], from: usize, doc: u32) -> usize {
+    let mut step = 1;
+    let mut hi = from;
+    while hi < docs.len() && docs[hi] < doc {
+        hi = from + step;
+        step *= 2;
+    }
+    let lo = from + step / 4;
+    let hi = hi.min(docs.len());
+    let lo = lo.min(hi);
+    lo + docs[lo..hi].partition_point(|&d| d < doc)
+}
+
 /// Sorts hits best first, ties broken by document id.
-pub fn rank(hits: &mut [Hit], ids: &[String]) {
+pub fn rank(hits: &mut [Hit], order: &DocOrder) {
     hits.sort_unstable_by(|a, b| {
         b.score
             .total_cmp(&a.score)
-            .then_with(|| ids[a.doc as usize].cmp(&ids[b.doc as usize]))
+            .then_with(|| order.place(a.doc).cmp(&order.place(b.doc)))
     });
 }
 
@@ -238,19 +475,17 @@ fn clause_tf(
     expansion: &Expansion,
     field: usize,
     source: &dyn KeySource,
-) -> Result<Vec<(u32, u32)>, IndexError> {
+) -> Result<Arc<Postings>, IndexError> {
     if let [only] = expansion.alternatives.as_slice()
         && let [(_, key)] = only.phrase.keys.as_slice()
     {
-        let p = source.postings(field, key)?;
-        return Ok(p.docs.iter().copied().zip(p.tfs.iter().copied()).collect());
+        return source.postings(field, key);
     }
     let mut pairs = Vec::new();
     for alternative in &expansion.alternatives {
         phrase_matches(&alternative.phrase, field, source, &mut pairs)?;
     }
-    let merged = Postings::from_pairs(pairs);
-    Ok(merged.docs.into_iter().zip(merged.tfs).collect())
+    Ok(Arc::new(Postings::from_pairs(pairs)))
 }
 
 /// Appends `(doc, start position)` for every match of `phrase`.
@@ -291,6 +526,124 @@ fn phrase_matches(
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::analysis::Analyzer;
+    use crate::rules::{SourceFile, load_sources};
+    use proptest::prelude::*;
+    use rustc_hash::FxHashMap;
+
+    /// Postings held in memory: key → (doc, position) pairs, two fields.
+    struct MapKeys {
+        postings: Vec<FxHashMap<String, Arc<Postings>>>,
+        lengths: Vec<Vec<u32>>,
+    }
+
+    impl KeySource for MapKeys {
+        fn num_docs(&self) -> u32 {
+            self.lengths[0].len() as u32
+        }
+        fn num_fields(&self) -> usize {
+            self.lengths.len()
+        }
+        fn doc_lengths(&self, field: usize) -> &[u32] {
+            &self.lengths[field]
+        }
+        fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
+            Ok(self.postings[field].get(key).cloned().unwrap_or_default())
+        }
+        fn keys(&self, field: usize) -> Vec<String> {
+            let mut k: Vec<String> = self.postings[field].keys().cloned().collect();
+            k.sort();
+            k
+        }
+    }
+
+    const WORDS: [&str; 6] = ["red", "blue", "green", "bus", "tram", "stop"];
+
+    fn source(docs: &[Vec<Vec<u8>>]) -> MapKeys {
+        let mut pairs: Vec<FxHashMap<String, Vec<(u32, u32)>>> = vec![Default::default(); 2];
+        let mut lengths = vec![vec![0u32; docs.len()]; 2];
+        for (d, fields) in docs.iter().enumerate() {
+            for (f, words) in fields.iter().enumerate() {
+                lengths[f][d] = words.len() as u32;
+                for (pos, &w) in words.iter().enumerate() {
+                    pairs[f]
+                        .entry(WORDS[w as usize].to_string())
+                        .or_default()
+                        .push((d as u32, pos as u32));
+                }
+            }
+        }
+        MapKeys {
+            postings: pairs
+                .into_iter()
+                .map(|m| {
+                    m.into_iter()
+                        .map(|(k, v)| (k, Arc::new(Postings::from_pairs(v))))
+                        .collect()
+                })
+                .collect(),
+            lengths,
+        }
+    }
+
+    fn analyzer() -> Analyzer {
+        let text = "format: 1\nrevision: 1\nsynonyms:\n  - id: colours\n    equivalent: [red, green tram]\n";
+        let rs = load_sources(
+            "t",
+            vec![SourceFile {
+                name: "t.yaml".into(),
+                text: text.into(),
+            }],
+        )
+        .unwrap();
+        Analyzer::new(rs).unwrap()
+    }
+
+    proptest! {
+        /// The candidate strategy of `all` gives the very hits (same scores, bit for bit) as
+        /// scoring every posting into the accumulators and keeping documents with every
+        /// clause.
+        #[test]
+        fn all_mode_equals_dense_scoring(
+            docs in prop::collection::vec(
+                prop::collection::vec(prop::collection::vec(0u8..6, 0..8), 2..=2), 1..40),
+            query in prop::collection::vec(0usize..6, 1..4),
+            cosine in any::<bool>(),
+        ) {
+            let source = source(&docs);
+            let scoring = Scoring {
+                ranking: if cosine { Ranking::Cosine } else { Ranking::Bm25 },
+                ..Scoring::default()
+            };
+            let stats = Stats::compute(&source, &scoring).unwrap();
+            let text: Vec<&str> = query.iter().map(|&w| WORDS[w]).collect();
+            let q = analyzer().analyze_query(&text.join(" "));
+            let weights = [2.0, 1.0];
+            let fast = retrieve_all(&q, &source, &stats, &scoring, &weights).unwrap();
+            let dense = SCRATCH.with_borrow_mut(|scratch| {
+                scratch.fit(docs.len());
+                score_clauses(&q, &source, &stats, &scoring, &weights, scratch).unwrap();
+                scratch.take_hits(q.expansions.len())
+            });
+            let ids: Vec<String> = (0..docs.len()).map(|d| format!("d{d:03}")).collect();
+            let order = DocOrder::by_id(&ids);
+            let (mut fast, mut dense) = (fast, dense);
+            rank(&mut fast, &order);
+            rank(&mut dense, &order);
+            prop_assert_eq!(fast, dense);
+        }
+    }
+
+    #[test]
+    fn gallop_finds_the_first_document_not_below() {
+        let docs = [1, 3, 5, 7, 9, 11, 13, 15, 17];
+        for from in 0..docs.len() {
+            for doc in 0..20 {
+                let want = from + docs[from..].partition_point(|&d| d < doc);
+                assert_eq!(gallop(&docs, from, doc), want, "from {from} doc {doc}");
+            }
+        }
+    }
 
     #[test]
     fn match_modes_parse() {
