@@ -103,6 +103,84 @@ impl Postings {
     }
 }
 
+/// One term's documents (ascending) and term frequencies, without positions: what a
+/// clause needs unless it holds a phrase. Reading no positions is most of the saving.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct Frequencies {
+    pub docs: Vec<u32>,
+    pub tfs: Vec<u32>,
+}
+
+impl Frequencies {
+    pub fn len(&self) -> usize {
+        self.docs.len()
+    }
+
+    pub fn is_empty(&self) -> bool {
+        self.docs.is_empty()
+    }
+
+    /// The documents and tfs of terms that never share a position (distinct terms of one
+    /// field, each position holding one token): tf summed per document. Pairwise merges,
+    /// smallest lists first, so k lists of n postings cost about n·log k.
+    pub fn sum(parts: &[Arc<Frequencies>]) -> Frequencies {
+        let mut lists: Vec<Frequencies> = parts.iter().map(|p| (**p).clone()).collect();
+        if lists.is_empty() {
+            return Frequencies::default();
+        }
+        while lists.len() > 1 {
+            lists.sort_by_key(|l| std::cmp::Reverse(l.len()));
+            let a = lists.pop().expect("two or more");
+            let b = lists.pop().expect("two or more");
+            lists.push(Frequencies::merge(&a, &b));
+        }
+        lists.pop().expect("one left")
+    }
+
+    fn merge(a: &Frequencies, b: &Frequencies) -> Frequencies {
+        let mut out = Frequencies {
+            docs: Vec::with_capacity(a.len() + b.len()),
+            tfs: Vec::with_capacity(a.len() + b.len()),
+        };
+        let (mut i, mut j) = (0, 0);
+        while i < a.len() && j < b.len() {
+            let (da, db) = (a.docs[i], b.docs[j]);
+            if da < db {
+                out.push(da, a.tfs[i]);
+                i += 1;
+            } else if db < da {
+                out.push(db, b.tfs[j]);
+                j += 1;
+            } else {
+                out.push(da, a.tfs[i] + b.tfs[j]);
+                i += 1;
+                j += 1;
+            }
+        }
+        for k in i..a.len() {
+            out.push(a.docs[k], a.tfs[k]);
+        }
+        for k in j..b.len() {
+            out.push(b.docs[k], b.tfs[k]);
+        }
+        out
+    }
+
+    fn push(&mut self, doc: u32, tf: u32) {
+        self.docs.push(doc);
+        self.tfs.push(tf);
+    }
+}
+
+impl From<&Postings> for Frequencies {
+    fn from(p: &Postings) -> Self {
+        Frequencies {
+            docs: p.docs.clone(),
+            tfs: p.tfs.clone(),
+        }
+    }
+}
+
 /// An opened index: per-field terms and postings in corpus document order, exact lengths.
 /// Postings read are kept (up to a budget) so a term is decoded once per run.
 pub struct IndexPostings {
@@ -113,10 +191,15 @@ pub struct IndexPostings {
     num_docs: u32,
     /// Per field, per corpus ord: the token count stored at build time.
     lengths: Vec<Vec<u32>>,
-    cache: RefCell<FxHashMap<(usize, String), Arc<Postings>>>,
+    /// Per field: term → postings with positions, and the positions held.
+    cache: RefCell<Vec<FxHashMap<String, Arc<Postings>>>>,
     cached_positions: RefCell<usize>,
+    /// Per field: term → frequencies, and the postings held.
+    freq_cache: RefCell<Vec<FxHashMap<String, Arc<Frequencies>>>>,
+    cached_postings: RefCell<usize>,
 }
 
+/// Positions (and, separately, postings) kept in the read caches before they are emptied.
 const CACHE_BUDGET: usize = 64 << 20;
 
 impl IndexPostings {
@@ -151,8 +234,10 @@ impl IndexPostings {
             ords,
             num_docs,
             lengths,
-            cache: RefCell::default(),
+            cache: RefCell::new(vec![FxHashMap::default(); num_fields]),
             cached_positions: RefCell::new(0),
+            freq_cache: RefCell::new(vec![FxHashMap::default(); num_fields]),
+            cached_postings: RefCell::new(0),
         })
     }
 
@@ -193,10 +278,27 @@ impl IndexPostings {
         Ok(out)
     }
 
-    /// The term frequencies of `term` in `field`: `(corpus ord, tf)`, without positions.
-    pub fn frequencies(&self, field: usize, term: &str) -> Result<Vec<(u32, u32)>, IndexError> {
+    /// The documents and term frequencies of `term` in `field`, without positions
+    /// (cached like [`IndexPostings::postings`]).
+    pub fn frequencies(&self, field: usize, term: &str) -> Result<Arc<Frequencies>, IndexError> {
+        if let Some(hit) = self.freq_cache.borrow()[field].get(term) {
+            return Ok(Arc::clone(hit));
+        }
+        let read = Arc::new(self.read_frequencies(field, term)?);
+        let mut used = self.cached_postings.borrow_mut();
+        let mut cache = self.freq_cache.borrow_mut();
+        if *used + read.len() > CACHE_BUDGET {
+            cache.iter_mut().for_each(FxHashMap::clear);
+            *used = 0;
+        }
+        *used += read.len();
+        cache[field].insert(term.to_string(), Arc::clone(&read));
+        Ok(read)
+    }
+
+    fn read_frequencies(&self, field: usize, term: &str) -> Result<Frequencies, IndexError> {
         let term = Term::from_field_text(self.fields.texts[field], term);
-        let mut out = Vec::new();
+        let mut pairs: Vec<(u32, u32)> = Vec::new();
         for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
             let inverted = segment.inverted_index(self.fields.texts[field])?;
             if let Some(mut postings) =
@@ -204,12 +306,18 @@ impl IndexPostings {
             {
                 let mut doc = postings.doc();
                 while doc != TERMINATED {
-                    out.push((self.ords[s][doc as usize], postings.term_freq()));
+                    pairs.push((self.ords[s][doc as usize], postings.term_freq()));
                     doc = postings.advance();
                 }
             }
         }
-        Ok(out)
+        if self.ords.len() > 1 {
+            pairs.sort_unstable_by_key(|p| p.0);
+        }
+        Ok(Frequencies {
+            docs: pairs.iter().map(|p| p.0).collect(),
+            tfs: pairs.iter().map(|p| p.1).collect(),
+        })
     }
 
     pub fn num_docs(&self) -> u32 {
@@ -246,26 +354,25 @@ impl IndexPostings {
 
     /// The postings of `term` in `field`, with positions.
     pub fn postings(&self, field: usize, term: &str) -> Result<Arc<Postings>, IndexError> {
-        let cache_key = (field, term.to_string());
-        if let Some(hit) = self.cache.borrow().get(&cache_key) {
+        if let Some(hit) = self.cache.borrow()[field].get(term) {
             return Ok(Arc::clone(hit));
         }
         let postings = Arc::new(self.read(field, term)?);
         let mut used = self.cached_positions.borrow_mut();
         let mut cache = self.cache.borrow_mut();
         if *used + postings.positions.len() > CACHE_BUDGET {
-            cache.clear();
+            cache.iter_mut().for_each(FxHashMap::clear);
             *used = 0;
         }
         *used += postings.positions.len();
-        cache.insert(cache_key, Arc::clone(&postings));
+        cache[field].insert(term.to_string(), Arc::clone(&postings));
         Ok(postings)
     }
 
     fn read(&self, field: usize, term: &str) -> Result<Postings, IndexError> {
         let term = Term::from_field_text(self.fields.texts[field], term);
-        let mut parts: Vec<(u32, u32, Vec<u32>)> = Vec::new();
-        let mut buffer = Vec::new();
+        // Per segment, in segment order; segments are then put in corpus order by document.
+        let mut out = Postings::default();
         for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
             let inverted = segment.inverted_index(self.fields.texts[field])?;
             let Some(mut postings) =
@@ -275,28 +382,35 @@ impl IndexPostings {
             };
             let mut doc = postings.doc();
             while doc != TERMINATED {
-                buffer.clear();
-                postings.positions(&mut buffer);
-                parts.push((
-                    self.ords[s][doc as usize],
-                    postings.term_freq(),
-                    buffer.clone(),
-                ));
+                out.docs.push(self.ords[s][doc as usize]);
+                out.tfs.push(postings.term_freq());
+                out.starts.push(out.positions.len() as u32);
+                postings.append_positions_with_offset(0, &mut out.positions);
                 doc = postings.advance();
             }
         }
-        if self.ords.len() > 1 {
-            parts.sort_unstable_by_key(|p| p.0);
+        out.starts.push(out.positions.len() as u32);
+        if self.ords.len() > 1 && !out.docs.is_sorted() {
+            out = out.sorted_by_doc();
         }
+        Ok(out)
+    }
+}
+
+impl Postings {
+    /// The same postings with documents in ascending order (a multi-segment read).
+    fn sorted_by_doc(&self) -> Postings {
+        let mut order: Vec<usize> = (0..self.len()).collect();
+        order.sort_unstable_by_key(|&i| self.docs[i]);
         let mut out = Postings::default();
-        for (doc, tf, positions) in parts {
-            out.docs.push(doc);
-            out.tfs.push(tf);
+        for i in order {
+            out.docs.push(self.docs[i]);
+            out.tfs.push(self.tfs[i]);
             out.starts.push(out.positions.len() as u32);
-            out.positions.extend(positions);
+            out.positions.extend_from_slice(self.positions_at(i));
         }
         out.starts.push(out.positions.len() as u32);
-        Ok(out)
+        out
     }
 }
 
@@ -312,5 +426,39 @@ mod tests {
         assert_eq!(u.docs, [0, 1, 2]);
         assert_eq!(u.tfs, [2, 1, 1]);
         assert_eq!(u.positions_at(0), [1, 3]);
+    }
+
+    #[test]
+    fn frequencies_sum_tfs_of_shared_documents() {
+        let a = Arc::new(Frequencies {
+            docs: vec![0, 2, 5],
+            tfs: vec![1, 2, 3],
+        });
+        let b = Arc::new(Frequencies {
+            docs: vec![2, 3],
+            tfs: vec![4, 1],
+        });
+        let c = Arc::new(Frequencies {
+            docs: vec![5, 9],
+            tfs: vec![1, 1],
+        });
+        let sum = Frequencies::sum(&[a, b, c]);
+        assert_eq!(sum.docs, [0, 2, 3, 5, 9]);
+        assert_eq!(sum.tfs, [1, 6, 1, 4, 1]);
+        assert_eq!(Frequencies::sum(&[]), Frequencies::default());
+    }
+
+    #[test]
+    fn sorting_by_document_keeps_each_documents_positions() {
+        let p = Postings {
+            docs: vec![4, 1],
+            tfs: vec![2, 1],
+            starts: vec![0, 2, 3],
+            positions: vec![7, 9, 3],
+        };
+        let s = p.sorted_by_doc();
+        assert_eq!(s.docs, [1, 4]);
+        assert_eq!(s.positions_at(0), [3]);
+        assert_eq!(s.positions_at(1), [7, 9]);
     }
 }

@@ -11,7 +11,7 @@ use std::sync::Arc;
 use rustc_hash::FxHashMap;
 
 use crate::analysis::Analyzer;
-use crate::index::{IndexError, IndexPostings, Postings};
+use crate::index::{Frequencies, IndexError, IndexPostings, Postings};
 
 /// Where retrieval gets its postings and statistics.
 pub trait KeySource {
@@ -20,8 +20,13 @@ pub trait KeySource {
     /// The length of every document in `field`: the tokens the analyzer keeps (stopwords
     /// excluded).
     fn doc_lengths(&self, field: usize) -> &[u32];
-    /// The postings of `key` in `field` (empty if no document holds it).
+    /// The postings of `key` in `field`, with positions (empty if no document holds it).
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError>;
+    /// The documents and tfs of `key` in `field`, without positions. The default drops
+    /// the positions of [`KeySource::postings`]; an index reads less.
+    fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
+        Ok(Arc::new(Frequencies::from(&*self.postings(field, key)?)))
+    }
     /// Every key present in `field`, sorted.
     fn keys(&self, field: usize) -> Vec<String>;
 }
@@ -48,8 +53,13 @@ pub struct ConflatedKeys<'a> {
     /// Per field: key → indices of its member forms.
     members: Vec<FxHashMap<String, Vec<u32>>>,
     lengths: Vec<Vec<u32>>,
-    cache: RefCell<FxHashMap<(usize, String), Arc<Postings>>>,
+    /// Per field: key → its members' union, with and without positions.
+    cache: RefCell<Vec<FxHashMap<String, Arc<Postings>>>>,
+    freq_cache: RefCell<Vec<FxHashMap<String, Arc<Frequencies>>>>,
 }
+
+/// Unions kept per cache before it is emptied.
+const CACHE_ENTRIES: usize = 100_000;
 
 impl<'a> ConflatedKeys<'a> {
     pub fn new(
@@ -66,7 +76,8 @@ impl<'a> ConflatedKeys<'a> {
                 match analyzer.key(form) {
                     Some(key) => groups.entry(key.into_owned()).or_default().push(i as u32),
                     None => {
-                        for (doc, tf) in index.frequencies(field, form)? {
+                        let stopword = index.frequencies(field, form)?;
+                        for (&doc, &tf) in stopword.docs.iter().zip(&stopword.tfs) {
                             let slot = &mut len[doc as usize];
                             *slot = slot.saturating_sub(tf);
                         }
@@ -80,22 +91,37 @@ impl<'a> ConflatedKeys<'a> {
             index,
             forms,
             members,
+            cache: RefCell::new(vec![FxHashMap::default(); lengths.len()]),
+            freq_cache: RefCell::new(vec![FxHashMap::default(); lengths.len()]),
             lengths,
-            cache: RefCell::default(),
         })
     }
 
     /// The surface forms that make up `key` in `field`.
     pub fn members(&self, field: usize, key: &str) -> Vec<&str> {
+        self.member_forms(field, key).collect()
+    }
+
+    fn member_forms(&self, field: usize, key: &str) -> impl Iterator<Item = &str> {
         self.members[field]
             .get(key)
-            .map(|m| {
-                m.iter()
-                    .map(|&i| self.forms.fields[field][i as usize].as_str())
-                    .collect()
-            })
-            .unwrap_or_default()
+            .into_iter()
+            .flatten()
+            .map(move |&i| self.forms.fields[field][i as usize].as_str())
     }
+}
+
+fn remember<T>(
+    cache: &RefCell<Vec<FxHashMap<String, Arc<T>>>>,
+    field: usize,
+    key: &str,
+    value: &Arc<T>,
+) {
+    let mut cache = cache.borrow_mut();
+    if cache[field].len() >= CACHE_ENTRIES {
+        cache[field].clear();
+    }
+    cache[field].insert(key.to_string(), Arc::clone(value));
 }
 
 impl KeySource for ConflatedKeys<'_> {
@@ -112,30 +138,37 @@ impl KeySource for ConflatedKeys<'_> {
     }
 
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
-        let cache_key = (field, key.to_string());
-        if let Some(hit) = self.cache.borrow().get(&cache_key) {
+        if let Some(hit) = self.cache.borrow()[field].get(key) {
             return Ok(Arc::clone(hit));
         }
-        let parts = match self.members[field].get(key) {
-            Some(m) => m
-                .iter()
-                .map(|&i| {
-                    self.index
-                        .postings(field, &self.forms.fields[field][i as usize])
-                })
-                .collect::<Result<Vec<_>, _>>()?,
-            None => Vec::new(),
-        };
+        let parts = self
+            .member_forms(field, key)
+            .map(|form| self.index.postings(field, form))
+            .collect::<Result<Vec<_>, _>>()?;
         let union = match parts.as_slice() {
             [one] => Arc::clone(one),
             _ => Arc::new(Postings::union(&parts)),
         };
-        let mut cache = self.cache.borrow_mut();
-        if cache.len() > 100_000 {
-            cache.clear();
-        }
-        cache.insert(cache_key, Arc::clone(&union));
+        remember(&self.cache, field, key, &union);
         Ok(union)
+    }
+
+    /// A group's tfs are its members' summed: each position holds one surface form, so
+    /// members never share a position.
+    fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
+        if let Some(hit) = self.freq_cache.borrow()[field].get(key) {
+            return Ok(Arc::clone(hit));
+        }
+        let parts = self
+            .member_forms(field, key)
+            .map(|form| self.index.frequencies(field, form))
+            .collect::<Result<Vec<_>, _>>()?;
+        let sum = match parts.as_slice() {
+            [one] => Arc::clone(one),
+            _ => Arc::new(Frequencies::sum(&parts)),
+        };
+        remember(&self.freq_cache, field, key, &sum);
+        Ok(sum)
     }
 
     fn keys(&self, field: usize) -> Vec<String> {
@@ -171,6 +204,10 @@ impl KeySource for DirectKeys<'_> {
 
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
         self.index.postings(field, key)
+    }
+
+    fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
+        self.index.frequencies(field, key)
     }
 
     fn keys(&self, field: usize) -> Vec<String> {

@@ -68,7 +68,9 @@ pub use attribution::{RuleIndex, Sides};
 pub use change::{ChangeSet, same_expansions, touched_keys};
 pub use keys::{ConflatedKeys, DirectKeys, KeySource, SurfaceForms};
 pub use report::*;
-pub use retrieve::{DocOrder, Hit, MatchMode, Ranking, Scoring, Stats, rank, retrieve};
+pub use retrieve::{
+    DocOrder, Hit, MatchMode, Ranking, Scoring, Stats, matches, rank, retrieve, top_hits,
+};
 
 use crate::analysis::Analyzer;
 use crate::corpus::{Corpus, QueryLog};
@@ -273,8 +275,9 @@ pub fn run(
     let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
     let order = DocOrder::by_id(&ids);
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
+    // Hits in document order; only the top k is ever ranked.
     let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery| {
-        retrieve(q, &s.keys, &s.stats, &options.scoring, &weights, &order)
+        matches(q, &s.keys, &s.stats, &options.scoring, &weights)
     };
 
     // Judged query texts → ids; judged texts missing from the log are run too.
@@ -308,8 +311,8 @@ pub fn run(
         change: &change,
     };
     let top = |hits: &[Hit]| -> Vec<RankedDoc> {
-        hits.iter()
-            .take(options.top_k)
+        top_hits(hits, options.top_k, &order)
+            .iter()
             .map(|h| RankedDoc {
                 id: ids[h.doc as usize].clone(),
                 score: h.score,
@@ -342,12 +345,13 @@ pub fn run(
             let hb = run_side(&base, &qb)?;
             let hh = run_side(&head, &qh)?;
             let (tb, th) = (top(&hb), top(&hh));
+            let (gained, lost) = gained_and_lost(&hb, &hh);
             let change = diff(
                 text,
                 *count,
                 &qid,
-                &hb,
-                &hh,
+                (hb.len(), hh.len()),
+                (gained.len(), lost.len()),
                 tb.clone(),
                 th.clone(),
                 options,
@@ -355,26 +359,14 @@ pub fn run(
             let label = change.label;
             if label != Label::Unchanged && i < log_len {
                 let mut c = change;
-                let mut gained: Vec<u32> = Vec::new();
-                let mut lost: Vec<u32> = Vec::new();
-                let sb: FxHashSet<u32> = hb.iter().map(|h| h.doc).collect();
-                let sh: FxHashSet<u32> = hh.iter().map(|h| h.doc).collect();
-                gained.extend(sh.difference(&sb));
-                lost.extend(sb.difference(&sh));
-                let by_id =
-                    |v: &mut Vec<u32>| v.sort_by(|a, b| ids[*a as usize].cmp(&ids[*b as usize]));
-                by_id(&mut gained);
-                by_id(&mut lost);
-                c.gained = gained
-                    .into_iter()
-                    .take(options.docs_shown)
-                    .map(doc_ref)
-                    .collect();
-                c.lost = lost
-                    .into_iter()
-                    .take(options.docs_shown)
-                    .map(doc_ref)
-                    .collect();
+                let shown = |docs: Vec<u32>| {
+                    first_by_place(docs, options.docs_shown, &order)
+                        .into_iter()
+                        .map(doc_ref)
+                        .collect()
+                };
+                c.gained = shown(gained);
+                c.lost = shown(lost);
                 c.causes = sides.attribute(text, &qb, &qh);
                 changes.push(c);
             }
@@ -481,26 +473,61 @@ pub fn run(
     })
 }
 
+/// The documents only `after` holds (gained) and only `before` holds (lost), both hit
+/// lists being in document order.
+fn gained_and_lost(before: &[Hit], after: &[Hit]) -> (Vec<u32>, Vec<u32>) {
+    let (mut gained, mut lost) = (Vec::new(), Vec::new());
+    let (mut i, mut j) = (0, 0);
+    while i < before.len() || j < after.len() {
+        match (before.get(i), after.get(j)) {
+            (Some(b), Some(a)) if b.doc == a.doc => {
+                i += 1;
+                j += 1;
+            }
+            (Some(b), Some(a)) if b.doc < a.doc => {
+                lost.push(b.doc);
+                i += 1;
+            }
+            (Some(b), None) => {
+                lost.push(b.doc);
+                i += 1;
+            }
+            (_, Some(a)) => {
+                gained.push(a.doc);
+                j += 1;
+            }
+            (None, None) => unreachable!("the loop runs while either list has hits"),
+        }
+    }
+    (gained, lost)
+}
+
+/// The first `n` documents in id order.
+fn first_by_place(mut docs: Vec<u32>, n: usize, order: &DocOrder) -> Vec<u32> {
+    if docs.len() > n && n > 0 {
+        docs.select_nth_unstable_by_key(n - 1, |&d| order.place(d));
+    }
+    docs.truncate(n);
+    docs.sort_unstable_by_key(|&d| order.place(d));
+    docs
+}
+
 #[allow(clippy::too_many_arguments)]
 fn diff(
     text: &str,
     searches: u64,
     qid: &Option<String>,
-    before: &[Hit],
-    after: &[Hit],
+    (matches_before, matches_after): (usize, usize),
+    (gained, lost): (usize, usize),
     top_before: Vec<RankedDoc>,
     top_after: Vec<RankedDoc>,
     options: &PreviewOptions,
 ) -> Result<QueryChange, MetricsError> {
-    let sb: FxHashSet<u32> = before.iter().map(|h| h.doc).collect();
-    let sa: FxHashSet<u32> = after.iter().map(|h| h.doc).collect();
-    let gained = sa.difference(&sb).count();
-    let lost = sb.difference(&sa).count();
     let same_top = top_before.len() == top_after.len()
         && top_before.iter().zip(&top_after).all(|(x, y)| {
             x.id == y.id && (x.score - y.score).abs() <= 1e-9 * x.score.abs().max(1.0)
         });
-    let label = match (before.len(), after.len()) {
+    let label = match (matches_before, matches_after) {
         (0, n) if n > 0 => Label::Rescued,
         (n, 0) if n > 0 => Label::Emptied,
         _ if gained > lost => Label::Gained,
@@ -516,8 +543,8 @@ fn diff(
         searches,
         label,
         mixed: gained > 0 && lost > 0,
-        matches_before: before.len(),
-        matches_after: after.len(),
+        matches_before,
+        matches_after,
         gained_count: gained,
         lost_count: lost,
         gained: Vec::new(),

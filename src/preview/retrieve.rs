@@ -9,7 +9,7 @@ use serde::Serialize;
 
 use super::keys::KeySource;
 use crate::analysis::{AnalyzedQuery, Expansion, Phrase};
-use crate::index::{IndexError, Postings};
+use crate::index::{Frequencies, IndexError, Postings};
 
 /// Which documents match: every clause, any clause, or at least N clauses (capped at the
 /// number of clauses, so a short query can still match).
@@ -131,7 +131,7 @@ impl Stats {
                     .map(|f| {
                         let mut sq = vec![0.0f64; n as usize];
                         for key in source.keys(f) {
-                            let p = source.postings(f, &key)?;
+                            let p = source.frequencies(f, &key)?;
                             let idf = (n as f64 / p.len() as f64).ln();
                             for (doc, tf) in p.docs.iter().zip(&p.tfs) {
                                 let w = (1.0 + (*tf as f64).ln()) * idf;
@@ -168,7 +168,8 @@ impl DocOrder {
         DocOrder(place)
     }
 
-    fn place(&self, doc: u32) -> u32 {
+    /// The document's place in id order.
+    pub fn place(&self, doc: u32) -> u32 {
         self.0[doc as usize]
     }
 }
@@ -254,6 +255,20 @@ pub fn retrieve(
     weights: &[f64],
     order: &DocOrder,
 ) -> Result<Vec<Hit>, IndexError> {
+    let mut hits = matches(query, source, stats, scoring, weights)?;
+    rank(&mut hits, order);
+    Ok(hits)
+}
+
+/// Every document matching `query` with its score, in document order: what a comparison
+/// of two sides needs, without ranking every match ([`top_hits`] ranks the first k).
+pub fn matches(
+    query: &AnalyzedQuery,
+    source: &dyn KeySource,
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+) -> Result<Vec<Hit>, IndexError> {
     let clauses = query.expansions.len();
     if clauses == 0 {
         return Ok(Vec::new());
@@ -263,19 +278,41 @@ pub fn retrieve(
         MatchMode::Any => 1,
         MatchMode::Min(k) => k.min(clauses),
     };
-    let mut hits = if need == clauses {
-        retrieve_all(query, source, stats, scoring, weights)?
-    } else {
-        SCRATCH.with_borrow_mut(|scratch| {
-            scratch.fit(stats.num_docs as usize);
-            let scored = score_clauses(query, source, stats, scoring, weights, scratch);
-            // Always clear the scratch, even after an error, so the next query starts clean.
-            let hits = scratch.take_hits(need);
-            scored.map(|()| hits)
-        })?
-    };
-    rank(&mut hits, order);
+    if need == clauses {
+        return retrieve_all(query, source, stats, scoring, weights);
+    }
+    let mut hits = SCRATCH.with_borrow_mut(|scratch| {
+        scratch.fit(stats.num_docs as usize);
+        let scored = score_clauses(query, source, stats, scoring, weights, scratch);
+        // Always clear the scratch, even after an error, so the next query starts clean.
+        let hits = scratch.take_hits(need);
+        scored.map(|()| hits)
+    })?;
+    hits.sort_unstable_by_key(|h| h.doc);
     Ok(hits)
+}
+
+/// The best `k` of `hits`, best first, ties by document id: the order [`rank`] gives,
+/// found in one pass over the hits with a buffer of k.
+pub fn top_hits(hits: &[Hit], k: usize, order: &DocOrder) -> Vec<Hit> {
+    let better = |a: &Hit, b: &Hit| {
+        b.score
+            .total_cmp(&a.score)
+            .then_with(|| order.place(a.doc).cmp(&order.place(b.doc)))
+    };
+    let mut best: Vec<Hit> = Vec::with_capacity(k + 1);
+    if k == 0 {
+        return best;
+    }
+    for hit in hits {
+        if best.len() == k && better(hit, &best[k - 1]).is_ge() {
+            continue;
+        }
+        let at = best.partition_point(|b| better(b, hit).is_lt());
+        best.insert(at, *hit);
+        best.truncate(k);
+    }
+    best
 }
 
 /// How one field scores a clause's postings: the formula with the clause's df fixed.
@@ -389,16 +426,11 @@ fn retrieve_all(
                 .collect::<Result<Vec<_>, _>>()
         })
         .collect::<Result<Vec<_>, _>>()?;
-    let size = |c: &Vec<Arc<Postings>>| c.iter().map(|p| p.len()).sum::<usize>();
+    let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
     let mut by_size: Vec<usize> = (0..lists.len()).collect();
     by_size.sort_by_key(|&c| (size(&lists[c]), c));
     let clauses = lists.len();
-    let mut candidates: Vec<u32> = lists[by_size[0]]
-        .iter()
-        .flat_map(|p| p.docs.iter().copied())
-        .collect();
-    candidates.sort_unstable();
-    candidates.dedup();
+    let mut candidates = union_of_docs(&lists[by_size[0]]);
     let mut contrib = vec![0.0f64; candidates.len() * clauses];
     for &c in &by_size {
         let mut matched = vec![false; candidates.len()];
@@ -445,6 +477,34 @@ fn retrieve_all(
         .collect())
 }
 
+/// The documents of any of these lists (each ascending), ascending, without repeats.
+fn union_of_docs(lists: &[Arc<Frequencies>]) -> Vec<u32> {
+    let mut out: Vec<u32> = Vec::new();
+    for list in lists.iter().filter(|l| !l.is_empty()) {
+        out = if out.is_empty() {
+            list.docs.clone()
+        } else {
+            merge_sorted(&out, &list.docs)
+        };
+    }
+    out
+}
+
+/// Two ascending lists merged, a value in both kept once.
+fn merge_sorted(a: &[u32], b: &[u32]) -> Vec<u32> {
+    let mut out = Vec::with_capacity(a.len() + b.len());
+    let (mut i, mut j) = (0, 0);
+    while i < a.len() && j < b.len() {
+        let (x, y) = (a[i], b[j]);
+        out.push(x.min(y));
+        i += usize::from(x <= y);
+        j += usize::from(y <= x);
+    }
+    out.extend_from_slice(&a[i..]);
+    out.extend_from_slice(&b[j..]);
+    out
+}
+
 /// The first index at or after `from` whose document is not below `doc` (exponential then
 /// binary search, so a run of nearby lookups costs little).
 fn gallop(docs: &[u32], from: usize, doc: u32) -> usize {
@@ -470,22 +530,41 @@ pub fn rank(hits: &mut [Hit], order: &DocOrder) {
 }
 
 /// A clause's tf per document in one field: the number of positions where any of its
-/// alternatives matches (sorted by document).
+/// alternatives matches (sorted by document). Without a phrase among the alternatives this
+/// is the sum of the distinct keys' tfs (a position holds one key), read without positions.
 fn clause_tf(
     expansion: &Expansion,
     field: usize,
     source: &dyn KeySource,
-) -> Result<Arc<Postings>, IndexError> {
-    if let [only] = expansion.alternatives.as_slice()
-        && let [(_, key)] = only.phrase.keys.as_slice()
+) -> Result<Arc<Frequencies>, IndexError> {
+    if expansion
+        .alternatives
+        .iter()
+        .all(|a| a.phrase.keys.len() <= 1)
     {
-        return source.postings(field, key);
+        let mut keys: Vec<&str> = expansion
+            .alternatives
+            .iter()
+            .flat_map(|a| a.phrase.keys.iter().map(|(_, k)| k.as_str()))
+            .collect();
+        keys.sort_unstable();
+        keys.dedup();
+        return match keys.as_slice() {
+            [only] => source.frequencies(field, only),
+            _ => {
+                let parts = keys
+                    .iter()
+                    .map(|k| source.frequencies(field, k))
+                    .collect::<Result<Vec<_>, _>>()?;
+                Ok(Arc::new(Frequencies::sum(&parts)))
+            }
+        };
     }
     let mut pairs = Vec::new();
     for alternative in &expansion.alternatives {
         phrase_matches(&alternative.phrase, field, source, &mut pairs)?;
     }
-    Ok(Arc::new(Postings::from_pairs(pairs)))
+    Ok(Arc::new(Frequencies::from(&Postings::from_pairs(pairs))))
 }
 
 /// Appends `(doc, start position)` for every match of `phrase`.
@@ -632,6 +711,36 @@ mod tests {
             rank(&mut dense, &order);
             prop_assert_eq!(fast, dense);
         }
+    }
+
+    proptest! {
+        /// The one-pass top k is the first k of the full ranking.
+        #[test]
+        fn top_hits_is_the_ranking_prefix(
+            scores in prop::collection::vec(0u8..5, 0..60),
+            k in 0usize..12,
+        ) {
+            let hits: Vec<Hit> = scores
+                .iter()
+                .enumerate()
+                .map(|(d, &s)| Hit { doc: d as u32, score: s as f64 / 2.0 })
+                .collect();
+            let ids: Vec<String> = (0..hits.len()).map(|d| format!("x{}", (d * 7) % 13)).collect();
+            let order = DocOrder::by_id(&ids);
+            let mut ranked = hits.clone();
+            rank(&mut ranked, &order);
+            ranked.truncate(k);
+            prop_assert_eq!(top_hits(&hits, k, &order), ranked);
+        }
+    }
+
+    #[test]
+    fn merged_lists_keep_shared_documents_once() {
+        assert_eq!(
+            merge_sorted(&[1, 4, 6], &[2, 4, 9, 11]),
+            [1, 2, 4, 6, 9, 11]
+        );
+        assert_eq!(merge_sorted(&[], &[3]), [3]);
     }
 
     #[test]
