@@ -1,7 +1,6 @@
 //! Reading an index back: its term dictionary, postings with positions, document lengths.
 
-use std::cell::RefCell;
-use std::sync::Arc;
+use std::sync::{Arc, Mutex};
 
 use rustc_hash::FxHashMap;
 use tantivy::postings::Postings as _;
@@ -191,16 +190,42 @@ pub struct IndexPostings {
     num_docs: u32,
     /// Per field, per corpus ord: the token count stored at build time.
     lengths: Vec<Vec<u32>>,
-    /// Per field: term → postings with positions, and the positions held.
-    cache: RefCell<Vec<FxHashMap<String, Arc<Postings>>>>,
-    cached_positions: RefCell<usize>,
-    /// Per field: term → frequencies, and the postings held.
-    freq_cache: RefCell<Vec<FxHashMap<String, Arc<Frequencies>>>>,
-    cached_postings: RefCell<usize>,
+    /// Postings with positions (sized by positions), and frequencies (sized by postings).
+    cache: ReadCache<Postings>,
+    freq_cache: ReadCache<Frequencies>,
 }
 
 /// Positions (and, separately, postings) kept in the read caches before they are emptied.
 const CACHE_BUDGET: usize = 64 << 20;
+
+/// Terms already decoded, per field, up to a budget; shared by parallel readers.
+struct ReadCache<T> {
+    inner: Mutex<(Vec<FxHashMap<String, Arc<T>>>, usize)>,
+}
+
+impl<T> ReadCache<T> {
+    fn new(fields: usize) -> Self {
+        ReadCache {
+            inner: Mutex::new(((0..fields).map(|_| FxHashMap::default()).collect(), 0)),
+        }
+    }
+
+    fn get(&self, field: usize, term: &str) -> Option<Arc<T>> {
+        let inner = self.inner.lock().unwrap_or_else(|p| p.into_inner());
+        inner.0[field].get(term).map(Arc::clone)
+    }
+
+    fn put(&self, field: usize, term: &str, value: &Arc<T>, size: usize) {
+        let mut inner = self.inner.lock().unwrap_or_else(|p| p.into_inner());
+        let (maps, used) = &mut *inner;
+        if *used + size > CACHE_BUDGET {
+            maps.iter_mut().for_each(FxHashMap::clear);
+            *used = 0;
+        }
+        *used += size;
+        maps[field].insert(term.to_string(), Arc::clone(value));
+    }
+}
 
 impl IndexPostings {
     pub fn open(index: &Index, num_fields: usize) -> Result<Self, IndexError> {
@@ -234,10 +259,8 @@ impl IndexPostings {
             ords,
             num_docs,
             lengths,
-            cache: RefCell::new(vec![FxHashMap::default(); num_fields]),
-            cached_positions: RefCell::new(0),
-            freq_cache: RefCell::new(vec![FxHashMap::default(); num_fields]),
-            cached_postings: RefCell::new(0),
+            cache: ReadCache::new(num_fields),
+            freq_cache: ReadCache::new(num_fields),
         })
     }
 
@@ -281,18 +304,11 @@ impl IndexPostings {
     /// The documents and term frequencies of `term` in `field`, without positions
     /// (cached like [`IndexPostings::postings`]).
     pub fn frequencies(&self, field: usize, term: &str) -> Result<Arc<Frequencies>, IndexError> {
-        if let Some(hit) = self.freq_cache.borrow()[field].get(term) {
-            return Ok(Arc::clone(hit));
+        if let Some(hit) = self.freq_cache.get(field, term) {
+            return Ok(hit);
         }
         let read = Arc::new(self.read_frequencies(field, term)?);
-        let mut used = self.cached_postings.borrow_mut();
-        let mut cache = self.freq_cache.borrow_mut();
-        if *used + read.len() > CACHE_BUDGET {
-            cache.iter_mut().for_each(FxHashMap::clear);
-            *used = 0;
-        }
-        *used += read.len();
-        cache[field].insert(term.to_string(), Arc::clone(&read));
+        self.freq_cache.put(field, term, &read, read.len());
         Ok(read)
     }
 
@@ -354,18 +370,12 @@ impl IndexPostings {
 
     /// The postings of `term` in `field`, with positions.
     pub fn postings(&self, field: usize, term: &str) -> Result<Arc<Postings>, IndexError> {
-        if let Some(hit) = self.cache.borrow()[field].get(term) {
-            return Ok(Arc::clone(hit));
+        if let Some(hit) = self.cache.get(field, term) {
+            return Ok(hit);
         }
         let postings = Arc::new(self.read(field, term)?);
-        let mut used = self.cached_positions.borrow_mut();
-        let mut cache = self.cache.borrow_mut();
-        if *used + postings.positions.len() > CACHE_BUDGET {
-            cache.iter_mut().for_each(FxHashMap::clear);
-            *used = 0;
-        }
-        *used += postings.positions.len();
-        cache[field].insert(term.to_string(), Arc::clone(&postings));
+        self.cache
+            .put(field, term, &postings, postings.positions.len());
         Ok(postings)
     }
 

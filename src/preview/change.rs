@@ -3,7 +3,7 @@
 
 use rustc_hash::{FxHashMap, FxHashSet};
 
-use super::keys::SurfaceForms;
+use super::keys::{FormKeys, SurfaceForms};
 use crate::analysis::{AnalyzedQuery, Analyzer};
 
 /// What a change touches.
@@ -35,8 +35,20 @@ impl ChangeSet {
     /// Compares the two rulesets' keys of every surface form of the index (`None` when
     /// the surface settings differ and each side has its own index).
     pub fn compute(base: &Analyzer, head: &Analyzer, forms: Option<&SurfaceForms>) -> ChangeSet {
+        let keys = forms.map(|f| (FormKeys::compute(base, f), FormKeys::compute(head, f)));
+        let shared = forms.zip(keys.as_ref().map(|(b, h)| (b, h)));
+        ChangeSet::from_keys(base, head, shared)
+    }
+
+    /// The same from both sides' keys of the shared surface forms (`None`: each side has
+    /// its own index).
+    pub fn from_keys(
+        base: &Analyzer,
+        head: &Analyzer,
+        shared: Option<(&SurfaceForms, (&FormKeys, &FormKeys))>,
+    ) -> ChangeSet {
         let mut change = ChangeSet::default();
-        let Some(forms) = forms else {
+        let Some((forms, (base_keys, head_keys))) = shared else {
             change.evaluate_all = Some(
                 "the surface settings (tokenizer, case, accents) differ: every query was run, \
                  each side on its own surface index"
@@ -52,18 +64,18 @@ impl ChangeSet {
             );
         }
         let mut seen = FxHashSet::default();
-        for list in &forms.fields {
-            for form in list {
-                let (b, h) = (base.key(form), head.key(form));
+        for (f, list) in forms.fields.iter().enumerate() {
+            for (i, form) in list.iter().enumerate() {
+                let (b, h) = (&base_keys.fields[f][i], &head_keys.fields[f][i]);
                 if b == h || !seen.insert(form.as_str()) {
                     continue;
                 }
                 change.changed_forms += 1;
                 for key in [b, h].into_iter().flatten() {
-                    change.affected_keys.insert(key.to_string());
+                    change.affected_keys.insert(key.clone());
                     change
                         .moved_forms
-                        .entry(key.into_owned())
+                        .entry(key.clone())
                         .or_default()
                         .push(form.clone());
                 }

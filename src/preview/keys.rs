@@ -5,8 +5,8 @@
 //! any member), and a document's length is its surface token count minus its stopwords.
 //! [`DirectKeys`] reads an index built with the real analyzer (the reference path).
 
-use std::cell::RefCell;
-use std::sync::Arc;
+use std::borrow::Cow;
+use std::sync::{Arc, Mutex};
 
 use rustc_hash::FxHashMap;
 
@@ -46,6 +46,36 @@ impl SurfaceForms {
     }
 }
 
+/// Every surface form's key under one ruleset (`None`: a stopword), per field. Computed
+/// once per side and shared by the change set and that side's conflation groups; a form
+/// found in several fields is keyed once.
+pub struct FormKeys {
+    pub fields: Vec<Vec<Option<String>>>,
+}
+
+impl FormKeys {
+    pub fn compute(analyzer: &Analyzer, forms: &SurfaceForms) -> FormKeys {
+        // Where each form was first keyed: (field, index).
+        let mut first: FxHashMap<&str, (usize, usize)> = FxHashMap::default();
+        let mut fields: Vec<Vec<Option<String>>> = Vec::with_capacity(forms.fields.len());
+        for (f, list) in forms.fields.iter().enumerate() {
+            let mut keys = Vec::with_capacity(list.len());
+            for (i, form) in list.iter().enumerate() {
+                let key = match first.get(form.as_str()) {
+                    Some(&(g, j)) if g < f => fields[g][j].clone(),
+                    _ => {
+                        first.insert(form, (f, i));
+                        analyzer.key(form).map(Cow::into_owned)
+                    }
+                };
+                keys.push(key);
+            }
+            fields.push(keys);
+        }
+        FormKeys { fields }
+    }
+}
+
 /// One ruleset's conflation groups over a surface index.
 pub struct ConflatedKeys<'a> {
     index: &'a IndexPostings,
@@ -54,8 +84,9 @@ pub struct ConflatedKeys<'a> {
     members: Vec<FxHashMap<String, Vec<u32>>>,
     lengths: Vec<Vec<u32>>,
     /// Per field: key → its members' union, with and without positions.
-    cache: RefCell<Vec<FxHashMap<String, Arc<Postings>>>>,
-    freq_cache: RefCell<Vec<FxHashMap<String, Arc<Frequencies>>>>,
+    /// (Behind locks: queries are evaluated in parallel.)
+    cache: Mutex<Vec<FxHashMap<String, Arc<Postings>>>>,
+    freq_cache: Mutex<Vec<FxHashMap<String, Arc<Frequencies>>>>,
 }
 
 /// Unions kept per cache before it is emptied.
@@ -67,14 +98,28 @@ impl<'a> ConflatedKeys<'a> {
         forms: &'a SurfaceForms,
         analyzer: &Analyzer,
     ) -> Result<Self, IndexError> {
+        ConflatedKeys::with_keys(index, forms, &FormKeys::compute(analyzer, forms))
+    }
+
+    /// The groups of forms already keyed.
+    pub fn with_keys(
+        index: &'a IndexPostings,
+        forms: &'a SurfaceForms,
+        keys: &FormKeys,
+    ) -> Result<Self, IndexError> {
         let mut members = Vec::with_capacity(forms.fields.len());
         let mut lengths = Vec::with_capacity(forms.fields.len());
         for (field, list) in forms.fields.iter().enumerate() {
             let mut groups: FxHashMap<String, Vec<u32>> = FxHashMap::default();
             let mut len = index.lengths(field).to_vec();
             for (i, form) in list.iter().enumerate() {
-                match analyzer.key(form) {
-                    Some(key) => groups.entry(key.into_owned()).or_default().push(i as u32),
+                match &keys.fields[field][i] {
+                    Some(key) => match groups.get_mut(key.as_str()) {
+                        Some(group) => group.push(i as u32),
+                        None => {
+                            groups.insert(key.clone(), vec![i as u32]);
+                        }
+                    },
                     None => {
                         let stopword = index.frequencies(field, form)?;
                         for (&doc, &tf) in stopword.docs.iter().zip(&stopword.tfs) {
@@ -91,8 +136,8 @@ impl<'a> ConflatedKeys<'a> {
             index,
             forms,
             members,
-            cache: RefCell::new(vec![FxHashMap::default(); lengths.len()]),
-            freq_cache: RefCell::new(vec![FxHashMap::default(); lengths.len()]),
+            cache: Mutex::new(vec![FxHashMap::default(); lengths.len()]),
+            freq_cache: Mutex::new(vec![FxHashMap::default(); lengths.len()]),
             lengths,
         })
     }
@@ -111,13 +156,19 @@ impl<'a> ConflatedKeys<'a> {
     }
 }
 
-fn remember<T>(
-    cache: &RefCell<Vec<FxHashMap<String, Arc<T>>>>,
-    field: usize,
-    key: &str,
-    value: &Arc<T>,
-) {
-    let mut cache = cache.borrow_mut();
+type Cache<T> = Mutex<Vec<FxHashMap<String, Arc<T>>>>;
+
+fn cached<T>(cache: &Cache<T>, field: usize, key: &str) -> Option<Arc<T>> {
+    let cache = cache
+        .lock()
+        .unwrap_or_else(|poisoned| poisoned.into_inner());
+    cache[field].get(key).map(Arc::clone)
+}
+
+fn remember<T>(cache: &Cache<T>, field: usize, key: &str, value: &Arc<T>) {
+    let mut cache = cache
+        .lock()
+        .unwrap_or_else(|poisoned| poisoned.into_inner());
     if cache[field].len() >= CACHE_ENTRIES {
         cache[field].clear();
     }
@@ -138,8 +189,8 @@ impl KeySource for ConflatedKeys<'_> {
     }
 
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
-        if let Some(hit) = self.cache.borrow()[field].get(key) {
-            return Ok(Arc::clone(hit));
+        if let Some(hit) = cached(&self.cache, field, key) {
+            return Ok(hit);
         }
         let parts = self
             .member_forms(field, key)
@@ -156,8 +207,8 @@ impl KeySource for ConflatedKeys<'_> {
     /// A group's tfs are its members' summed: each position holds one surface form, so
     /// members never share a position.
     fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
-        if let Some(hit) = self.freq_cache.borrow()[field].get(key) {
-            return Ok(Arc::clone(hit));
+        if let Some(hit) = cached(&self.freq_cache, field, key) {
+            return Ok(hit);
         }
         let parts = self
             .member_forms(field, key)

@@ -61,12 +61,13 @@ mod retrieve;
 use std::path::PathBuf;
 use std::sync::Arc;
 
+use rayon::prelude::*;
 use rustc_hash::{FxHashMap, FxHashSet};
 use serde::Serialize;
 
 pub use attribution::{RuleIndex, Sides};
 pub use change::{ChangeSet, same_expansions, touched_keys};
-pub use keys::{ConflatedKeys, DirectKeys, KeySource, SurfaceForms};
+pub use keys::{ConflatedKeys, DirectKeys, FormKeys, KeySource, SurfaceForms};
 pub use report::*;
 pub use retrieve::{
     DocOrder, Hit, MatchMode, Ranking, Scoring, Stats, matches, rank, retrieve, top_hits,
@@ -177,6 +178,16 @@ pub fn metric_list(k: usize) -> Vec<Metric> {
     ]
 }
 
+/// One query's result on both sides, before it is folded into the report.
+struct QueryOutcome {
+    evaluated: bool,
+    label: Label,
+    top_b: Vec<RankedDoc>,
+    top_h: Vec<RankedDoc>,
+    /// Listed in the report: a changed query of the log.
+    change: Option<QueryChange>,
+}
+
 struct Side<'a> {
     analyzer: &'a Analyzer,
     keys: ConflatedKeys<'a>,
@@ -187,9 +198,10 @@ fn make_side<'a>(
     analyzer: &'a Analyzer,
     postings: &'a IndexPostings,
     forms: &'a SurfaceForms,
+    form_keys: &FormKeys,
     scoring: &Scoring,
 ) -> Result<Side<'a>, IndexError> {
-    let keys = ConflatedKeys::new(postings, forms, analyzer)?;
+    let keys = ConflatedKeys::with_keys(postings, forms, form_keys)?;
     let stats = Stats::compute(&keys, scoring)?;
     Ok(Side {
         analyzer,
@@ -264,13 +276,24 @@ pub fn run(
         Some(o) => Some(SurfaceForms::read(&o.postings)?),
         None => None,
     };
-    let change = ChangeSet::compute(base_a, head_a, same_surface.then_some(&forms_base));
-    let side = |a, postings, forms| make_side(a, postings, forms, &options.scoring);
-    let base = side(base_a, &opened_base.postings, &forms_base)?;
-    let head = match (&opened_head, &forms_head) {
-        (Some(o), Some(f)) => side(head_a, &o.postings, f)?,
-        _ => side(head_a, &opened_base.postings, &forms_base)?,
+    // Each side keys every surface form once (the two sides in parallel); the change set
+    // and the conflation groups share those keys.
+    let (head_postings, head_forms) = match (&opened_head, &forms_head) {
+        (Some(o), Some(f)) => (&o.postings, f),
+        _ => (&opened_base.postings, &forms_base),
     };
+    let (keys_base, keys_head) = rayon::join(
+        || FormKeys::compute(base_a, &forms_base),
+        || FormKeys::compute(head_a, head_forms),
+    );
+    let change = ChangeSet::from_keys(
+        base_a,
+        head_a,
+        same_surface.then_some((&forms_base, (&keys_base, &keys_head))),
+    );
+    let side = |a, postings, forms, keys| make_side(a, postings, forms, keys, &options.scoring);
+    let base = side(base_a, &opened_base.postings, &forms_base, &keys_base)?;
+    let head = side(head_a, head_postings, head_forms, &keys_head)?;
 
     let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
     let order = DocOrder::by_id(&ids);
@@ -324,13 +347,10 @@ pub fn run(
         title: corpus.documents[d as usize].title.clone(),
     };
 
-    let mut changes = Vec::new();
-    let mut labels: FxHashMap<Label, (usize, u64)> = FxHashMap::default();
-    let mut evaluated = 0;
-    let mut runs = Runs::default();
-    let mut judged_rankings: Vec<(String, Vec<String>, Vec<String>)> = Vec::new();
-    for (i, (text, count)) in queries.iter().enumerate() {
-        let qid = qid_of.get(text).cloned();
+    // Queries are evaluated independently, in parallel, then folded in log order.
+    let evaluate = |i: usize| -> Result<QueryOutcome, PreviewError> {
+        let (text, count) = &queries[i];
+        let qid = qid_of.get(text);
         let qb = base.analyzer.analyze_query(text);
         let qh = head.analyzer.analyze_query(text);
         let differs = !same_expansions(&qb, &qh);
@@ -340,59 +360,89 @@ pub fn run(
                 .chain(touched_keys(&qh))
                 .any(|k| change.affected_keys.contains(k));
         let needs_ranking = qid.is_some() || options.want_runs;
-        let (top_b, top_h, label) = if must {
-            evaluated += 1;
-            let hb = run_side(&base, &qb)?;
-            let hh = run_side(&head, &qh)?;
-            let (tb, th) = (top(&hb), top(&hh));
-            let (gained, lost) = gained_and_lost(&hb, &hh);
-            let change = diff(
-                text,
-                *count,
-                &qid,
-                (hb.len(), hh.len()),
-                (gained.len(), lost.len()),
-                tb.clone(),
-                th.clone(),
-                options,
-            )?;
-            let label = change.label;
-            if label != Label::Unchanged && i < log_len {
-                let mut c = change;
-                let shown = |docs: Vec<u32>| {
-                    first_by_place(docs, options.docs_shown, &order)
-                        .into_iter()
-                        .map(doc_ref)
-                        .collect()
-                };
-                c.gained = shown(gained);
-                c.lost = shown(lost);
-                c.causes = sides.attribute(text, &qb, &qh);
-                changes.push(c);
-            }
-            (tb, th, label)
-        } else if needs_ranking {
-            let tb = top(&run_side(&base, &qb)?);
-            (tb.clone(), tb, Label::Unchanged)
-        } else {
-            (Vec::new(), Vec::new(), Label::Unchanged)
-        };
+        if !must {
+            let top_b = if needs_ranking {
+                top(&run_side(&base, &qb)?)
+            } else {
+                Vec::new()
+            };
+            return Ok(QueryOutcome {
+                evaluated: false,
+                label: Label::Unchanged,
+                top_h: top_b.clone(),
+                top_b,
+                change: None,
+            });
+        }
+        let hb = run_side(&base, &qb)?;
+        let hh = run_side(&head, &qh)?;
+        let (top_b, top_h) = (top(&hb), top(&hh));
+        let (gained, lost) = gained_and_lost(&hb, &hh);
+        let mut change = diff(
+            text,
+            *count,
+            qid,
+            (hb.len(), hh.len()),
+            (gained.len(), lost.len()),
+            top_b.clone(),
+            top_h.clone(),
+            options,
+        )?;
+        let label = change.label;
+        let listed = label != Label::Unchanged && i < log_len;
+        if listed {
+            let shown = |docs: Vec<u32>| {
+                first_by_place(docs, options.docs_shown, &order)
+                    .into_iter()
+                    .map(doc_ref)
+                    .collect()
+            };
+            change.gained = shown(gained);
+            change.lost = shown(lost);
+            change.causes = sides.attribute(text, &qb, &qh);
+        }
+        Ok(QueryOutcome {
+            evaluated: true,
+            label,
+            top_b,
+            top_h,
+            change: listed.then_some(change),
+        })
+    };
+    let outcomes = (0..queries.len())
+        .into_par_iter()
+        .map(evaluate)
+        .collect::<Result<Vec<_>, _>>()?;
+
+    let mut changes = Vec::new();
+    let mut labels: FxHashMap<Label, (usize, u64)> = FxHashMap::default();
+    let mut evaluated = 0;
+    let mut runs = Runs::default();
+    let mut judged_rankings: Vec<(String, Vec<String>, Vec<String>)> = Vec::new();
+    for (i, outcome) in outcomes.into_iter().enumerate() {
+        let (text, count) = &queries[i];
+        let qid = qid_of.get(text);
+        evaluated += usize::from(outcome.evaluated);
+        changes.extend(outcome.change);
         if i < log_len {
-            let slot = labels.entry(label).or_default();
+            let slot = labels.entry(outcome.label).or_default();
             slot.0 += 1;
             slot.1 += count;
         }
-        if let Some(qid) = &qid {
+        if let Some(qid) = qid {
             let names = |v: &[RankedDoc]| v.iter().map(|d| d.id.clone()).collect();
-            judged_rankings.push((qid.clone(), names(&top_b), names(&top_h)));
+            judged_rankings.push((qid.clone(), names(&outcome.top_b), names(&outcome.top_h)));
         }
         if options.want_runs {
-            let qid = qid.clone().unwrap_or_else(|| format!("q{}", i + 1));
+            let qid = qid.cloned().unwrap_or_else(|| format!("q{}", i + 1));
             runs.base.push(RunQuery {
                 qid: qid.clone(),
-                docs: top_b,
+                docs: outcome.top_b,
             });
-            runs.head.push(RunQuery { qid, docs: top_h });
+            runs.head.push(RunQuery {
+                qid,
+                docs: outcome.top_h,
+            });
         }
     }
     changes.sort_by(|a, b| {
@@ -516,7 +566,7 @@ fn first_by_place(mut docs: Vec<u32>, n: usize, order: &DocOrder) -> Vec<u32> {
 fn diff(
     text: &str,
     searches: u64,
-    qid: &Option<String>,
+    qid: Option<&String>,
     (matches_before, matches_after): (usize, usize),
     (gained, lost): (usize, usize),
     top_before: Vec<RankedDoc>,
@@ -539,7 +589,7 @@ fn diff(
     let rbo = metrics::rbo_ext(&names(&top_before), &names(&top_after), options.rbo_p)?;
     Ok(QueryChange {
         query: text.to_string(),
-        qid: qid.clone(),
+        qid: qid.cloned(),
         searches,
         label,
         mixed: gained > 0 && lost > 0,

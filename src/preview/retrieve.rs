@@ -111,6 +111,9 @@ pub struct Hit {
 pub struct Stats {
     pub num_docs: u32,
     pub avgdl: Vec<f64>,
+    /// BM25 only: per field, per document, `k1·(1 − b + b·dl/avgdl)`, the same for every
+    /// query, so a posting's score costs one division.
+    pub k1_norms: Vec<Vec<f64>>,
     /// Cosine only: per field, per document, the norm of its key-weight vector.
     pub norms: Option<Vec<Vec<f64>>>,
 }
@@ -123,7 +126,27 @@ impl Stats {
                 let total: u64 = source.doc_lengths(f).iter().map(|&l| l as u64).sum();
                 if n == 0 { 0.0 } else { total as f64 / n as f64 }
             })
-            .collect();
+            .collect::<Vec<f64>>();
+        let k1_norms = match scoring.ranking {
+            Ranking::Bm25 => (0..source.num_fields())
+                .map(|f| {
+                    let avgdl = avgdl[f];
+                    source
+                        .doc_lengths(f)
+                        .iter()
+                        .map(|&dl| {
+                            let norm = if avgdl > 0.0 {
+                                1.0 - scoring.b + scoring.b * dl as f64 / avgdl
+                            } else {
+                                1.0
+                            };
+                            scoring.k1 * norm
+                        })
+                        .collect()
+                })
+                .collect(),
+            Ranking::Cosine => Vec::new(),
+        };
         let norms = match scoring.ranking {
             Ranking::Bm25 => None,
             Ranking::Cosine => Some(
@@ -146,6 +169,7 @@ impl Stats {
         Ok(Stats {
             num_docs: n,
             avgdl,
+            k1_norms,
             norms,
         })
     }
@@ -316,60 +340,50 @@ pub fn top_hits(hits: &[Hit], k: usize, order: &DocOrder) -> Vec<Hit> {
 }
 
 /// How one field scores a clause's postings: the formula with the clause's df fixed.
-struct FieldScore<'a> {
-    scoring: &'a Scoring,
-    weight: f64,
-    idf: f64,
-    avgdl: f64,
-    lengths: &'a [u32],
-    norms: Option<&'a [f64]>,
+enum FieldScore<'a> {
+    /// `weight·idf`, `k1 + 1`, and the documents' `k1·(1 − b + b·dl/avgdl)`.
+    Bm25 {
+        weight_idf: f64,
+        k1_plus_1: f64,
+        k1_norms: &'a [f64],
+    },
+    Cosine {
+        weight: f64,
+        idf: f64,
+        norms: &'a [f64],
+    },
 }
 
 impl<'a> FieldScore<'a> {
-    fn new(
-        scoring: &'a Scoring,
-        stats: &'a Stats,
-        source: &'a dyn KeySource,
-        field: usize,
-        weight: f64,
-        df: usize,
-    ) -> Self {
+    fn new(scoring: &Scoring, stats: &'a Stats, field: usize, weight: f64, df: usize) -> Self {
         let (n, df) = (stats.num_docs as f64, df as f64);
-        let (idf, norms) = match scoring.ranking {
-            Ranking::Bm25 => ((1.0 + (n - df + 0.5) / (df + 0.5)).ln(), None),
-            Ranking::Cosine => (
-                (n / df).ln(),
-                Some(stats.norms.as_ref().expect("cosine stats")[field].as_slice()),
-            ),
-        };
-        FieldScore {
-            scoring,
-            weight,
-            idf,
-            avgdl: stats.avgdl[field],
-            lengths: source.doc_lengths(field),
-            norms,
+        match scoring.ranking {
+            Ranking::Bm25 => FieldScore::Bm25 {
+                weight_idf: weight * (1.0 + (n - df + 0.5) / (df + 0.5)).ln(),
+                k1_plus_1: scoring.k1 + 1.0,
+                k1_norms: &stats.k1_norms[field],
+            },
+            Ranking::Cosine => FieldScore::Cosine {
+                weight,
+                idf: (n / df).ln(),
+                norms: &stats.norms.as_ref().expect("cosine stats")[field],
+            },
         }
     }
 
     fn score(&self, doc: u32, tf: u32) -> f64 {
         let tf = tf as f64;
-        match self.norms {
-            None => {
-                let dl = self.lengths[doc as usize] as f64;
-                let norm = if self.avgdl > 0.0 {
-                    1.0 - self.scoring.b + self.scoring.b * dl / self.avgdl
-                } else {
-                    1.0
-                };
-                let part = tf * (self.scoring.k1 + 1.0) / (tf + self.scoring.k1 * norm);
-                self.weight * self.idf * part
-            }
-            Some(norms) => {
+        match *self {
+            FieldScore::Bm25 {
+                weight_idf,
+                k1_plus_1,
+                k1_norms,
+            } => weight_idf * (tf * k1_plus_1 / (tf + k1_norms[doc as usize])),
+            FieldScore::Cosine { weight, idf, norms } => {
                 let norm = norms[doc as usize];
-                let w = (1.0 + tf.ln()) * self.idf;
+                let w = (1.0 + tf.ln()) * idf;
                 let s = if norm > 0.0 { w / norm } else { 0.0 };
-                self.weight * s
+                weight * s
             }
         }
     }
@@ -396,7 +410,7 @@ fn score_clauses(
             if list.is_empty() {
                 continue;
             }
-            let scorer = FieldScore::new(scoring, stats, source, field, weight, list.len());
+            let scorer = FieldScore::new(scoring, stats, field, weight, list.len());
             for (&doc, &tf) in list.docs.iter().zip(&list.tfs) {
                 scratch.add_to_clause(doc, scorer.score(doc, tf));
             }
@@ -438,7 +452,7 @@ fn retrieve_all(
             if list.is_empty() {
                 continue;
             }
-            let scorer = FieldScore::new(scoring, stats, source, field, weights[field], list.len());
+            let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
             let mut from = 0;
             for (i, &doc) in candidates.iter().enumerate() {
                 from = gallop(&list.docs, from, doc);
