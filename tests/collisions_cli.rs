@@ -9,8 +9,14 @@ use std::path::Path;
 
 use assert_cmd::Command;
 
-fn wordnet_installed() -> bool {
-    Path::new("/usr/share/wordnet/index.noun").exists()
+/// These tests read WordNet 3.0 (Debian `wordnet-base`, which `tests/run.sh` installs):
+/// without it they fail, naming what is missing, instead of passing unchecked.
+fn require_wordnet() {
+    assert!(
+        Path::new("/usr/share/wordnet/index.noun").exists(),
+        "WordNet 3.0 is missing: install the Debian package wordnet-base \
+         (tests/run.sh does) so /usr/share/wordnet/index.noun exists"
+    );
 }
 
 fn lexdelta() -> Command {
@@ -41,9 +47,7 @@ fn collisions_json(extra: &[&str]) -> serde_json::Value {
 
 #[test]
 fn planted_over_truncations_rank_in_the_top_ten() {
-    if !wordnet_installed() {
-        return;
-    }
+    require_wordnet();
     let report = collisions_json(&["--top", "10"]);
     let keys: Vec<&str> = report["collisions"]
         .as_array()
@@ -64,9 +68,7 @@ fn planted_over_truncations_rank_in_the_top_ten() {
 
 #[test]
 fn transit_is_split_by_exempting_the_other_side() {
-    if !wordnet_installed() {
-        return;
-    }
+    require_wordnet();
     let report = collisions_json(&["--top", "30"]);
     let transit = report["collisions"]
         .as_array()
@@ -91,9 +93,7 @@ fn transit_is_split_by_exempting_the_other_side() {
 
 #[test]
 fn output_is_byte_identical_across_runs() {
-    if !wordnet_installed() {
-        return;
-    }
+    require_wordnet();
     for format in ["text", "json", "csv"] {
         let run = || {
             lexdelta()
@@ -120,9 +120,7 @@ fn output_is_byte_identical_across_runs() {
 
 #[test]
 fn written_suggestions_load_as_a_rule_file_and_split_the_groups() {
-    if !wordnet_installed() {
-        return;
-    }
+    require_wordnet();
     let dir = tempfile::tempdir().unwrap();
     let rules = dir.path().join("rules");
     std::fs::create_dir(&rules).unwrap();

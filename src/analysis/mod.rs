@@ -310,10 +310,21 @@ impl Analyzer {
     pub fn is_stopword(&self, form: &str) -> bool {
         self.stopwords.is_stopword(form)
     }
+
+    /// Whether no rule names `form` (stopword, exemption or lemma override), so its key is
+    /// the stemmer's alone: two analyzers with the same stemmer give it the same key.
+    pub fn stems_plainly(&self, form: &str) -> bool {
+        !self.is_stopword(form) && self.is_exempt(form).is_none() && self.lemma_of(form).is_none()
+    }
+
+    /// Whether both analyzers stem with the same algorithm (or neither stems).
+    pub fn same_stemmer(&self, other: &Analyzer) -> bool {
+        self.ruleset.pipeline.stemmer == other.ruleset.pipeline.stemmer
+    }
 }
 
 #[cfg(test)]
-mod tests {
+pub(crate) mod tests {
     use super::*;
     use crate::rules::{SourceFile, load_sources};
 

@@ -21,7 +21,7 @@ mod reader;
 
 pub use build::{build_key_index, build_surface_index};
 pub use cache::{CacheStatus, FORMAT_VERSION, open_or_build};
-pub use reader::{Frequencies, IndexPostings, Postings};
+pub use reader::{Frequencies, IndexPostings, Postings, ReadCache};
 
 /// Why an index could not be built, opened or read.
 #[derive(Debug, thiserror::Error)]

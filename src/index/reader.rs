@@ -120,20 +120,18 @@ impl Frequencies {
     }
 
     /// The documents and tfs of terms that never share a position (distinct terms of one
-    /// field, each position holding one token): tf summed per document. Pairwise merges,
-    /// smallest lists first, so k lists of n postings cost about n·log k.
+    /// field, each position holding one token): tf summed per document. The lists are
+    /// merged smallest first, without copying them beforehand.
     pub fn sum(parts: &[Arc<Frequencies>]) -> Frequencies {
-        let mut lists: Vec<Frequencies> = parts.iter().map(|p| (**p).clone()).collect();
-        if lists.is_empty() {
-            return Frequencies::default();
+        let mut lists: Vec<&Frequencies> = parts.iter().map(|p| &**p).collect();
+        lists.sort_by_key(|l| l.len());
+        match lists.as_slice() {
+            [] => Frequencies::default(),
+            [one] => (*one).clone(),
+            [a, b, rest @ ..] => rest.iter().fold(Frequencies::merge(a, b), |sum, l| {
+                Frequencies::merge(&sum, l)
+            }),
         }
-        while lists.len() > 1 {
-            lists.sort_by_key(|l| std::cmp::Reverse(l.len()));
-            let a = lists.pop().expect("two or more");
-            let b = lists.pop().expect("two or more");
-            lists.push(Frequencies::merge(&a, &b));
-        }
-        lists.pop().expect("one left")
     }
 
     fn merge(a: &Frequencies, b: &Frequencies) -> Frequencies {
@@ -195,30 +193,35 @@ pub struct IndexPostings {
     freq_cache: ReadCache<Frequencies>,
 }
 
-/// Positions (and, separately, postings) kept in the read caches before they are emptied.
-const CACHE_BUDGET: usize = 64 << 20;
+/// Positions, and separately postings, kept in the read caches before they are emptied:
+/// with a 4-byte position and an 8-byte posting, at most about 32 MiB and 64 MiB. A
+/// million-document corpus must preview in well under 2 GiB, the corpus itself included.
+const CACHE_BUDGET: usize = 8 << 20;
 
-/// Terms already decoded, per field, up to a budget; shared by parallel readers.
-struct ReadCache<T> {
+/// Values already computed, per field and term, up to a budget of `size` units (the caller
+/// says what a value costs); emptied when full. Shared by parallel readers.
+pub struct ReadCache<T> {
     inner: Mutex<(Vec<FxHashMap<String, Arc<T>>>, usize)>,
+    budget: usize,
 }
 
 impl<T> ReadCache<T> {
-    fn new(fields: usize) -> Self {
+    pub fn new(fields: usize, budget: usize) -> Self {
         ReadCache {
             inner: Mutex::new(((0..fields).map(|_| FxHashMap::default()).collect(), 0)),
+            budget,
         }
     }
 
-    fn get(&self, field: usize, term: &str) -> Option<Arc<T>> {
+    pub fn get(&self, field: usize, term: &str) -> Option<Arc<T>> {
         let inner = self.inner.lock().unwrap_or_else(|p| p.into_inner());
         inner.0[field].get(term).map(Arc::clone)
     }
 
-    fn put(&self, field: usize, term: &str, value: &Arc<T>, size: usize) {
+    pub fn put(&self, field: usize, term: &str, value: &Arc<T>, size: usize) {
         let mut inner = self.inner.lock().unwrap_or_else(|p| p.into_inner());
         let (maps, used) = &mut *inner;
-        if *used + size > CACHE_BUDGET {
+        if *used + size > self.budget {
             maps.iter_mut().for_each(FxHashMap::clear);
             *used = 0;
         }
@@ -259,8 +262,8 @@ impl IndexPostings {
             ords,
             num_docs,
             lengths,
-            cache: ReadCache::new(num_fields),
-            freq_cache: ReadCache::new(num_fields),
+            cache: ReadCache::new(num_fields, CACHE_BUDGET),
+            freq_cache: ReadCache::new(num_fields, CACHE_BUDGET),
         })
     }
 

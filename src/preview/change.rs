@@ -35,7 +35,7 @@ impl ChangeSet {
     /// Compares the two rulesets' keys of every surface form of the index (`None` when
     /// the surface settings differ and each side has its own index).
     pub fn compute(base: &Analyzer, head: &Analyzer, forms: Option<&SurfaceForms>) -> ChangeSet {
-        let keys = forms.map(|f| (FormKeys::compute(base, f), FormKeys::compute(head, f)));
+        let keys = forms.map(|f| FormKeys::compute_pair(base, head, f));
         let shared = forms.zip(keys.as_ref().map(|(b, h)| (b, h)));
         ChangeSet::from_keys(base, head, shared)
     }
@@ -66,16 +66,16 @@ impl ChangeSet {
         let mut seen = FxHashSet::default();
         for (f, list) in forms.fields.iter().enumerate() {
             for (i, form) in list.iter().enumerate() {
-                let (b, h) = (&base_keys.fields[f][i], &head_keys.fields[f][i]);
+                let (b, h) = (base_keys.key(f, i), head_keys.key(f, i));
                 if b == h || !seen.insert(form.as_str()) {
                     continue;
                 }
                 change.changed_forms += 1;
                 for key in [b, h].into_iter().flatten() {
-                    change.affected_keys.insert(key.clone());
+                    change.affected_keys.insert(key.to_string());
                     change
                         .moved_forms
-                        .entry(key.clone())
+                        .entry(key.to_string())
                         .or_default()
                         .push(form.clone());
                 }

@@ -6,12 +6,13 @@
 //! [`DirectKeys`] reads an index built with the real analyzer (the reference path).
 
 use std::borrow::Cow;
-use std::sync::{Arc, Mutex};
+use std::sync::Arc;
 
+use rayon::prelude::*;
 use rustc_hash::FxHashMap;
 
 use crate::analysis::Analyzer;
-use crate::index::{Frequencies, IndexError, IndexPostings, Postings};
+use crate::index::{Frequencies, IndexError, IndexPostings, Postings, ReadCache};
 
 /// Where retrieval gets its postings and statistics.
 pub trait KeySource {
@@ -37,43 +38,101 @@ pub struct SurfaceForms {
 }
 
 impl SurfaceForms {
+    /// Reads every field's term dictionary (the fields in parallel).
     pub fn read(index: &IndexPostings) -> Result<Self, IndexError> {
         Ok(SurfaceForms {
             fields: (0..index.num_fields())
+                .into_par_iter()
                 .map(|f| index.terms(f))
                 .collect::<Result<_, _>>()?,
         })
     }
 }
 
-/// Every surface form's key under one ruleset (`None`: a stopword), per field. Computed
-/// once per side and shared by the change set and that side's conflation groups; a form
-/// found in several fields is keyed once.
+/// Every surface form's key under one ruleset (`None`: a stopword). Computed once per side
+/// and shared by the change set and that side's conflation groups; a form found in
+/// several fields is keyed once.
 pub struct FormKeys {
-    pub fields: Vec<Vec<Option<String>>>,
+    /// Per distinct form (sorted over all fields), its key.
+    keys: Vec<Option<String>>,
+    /// Per field, per form: its place among the distinct forms.
+    places: Vec<Vec<u32>>,
 }
 
 impl FormKeys {
     pub fn compute(analyzer: &Analyzer, forms: &SurfaceForms) -> FormKeys {
-        // Where each form was first keyed: (field, index).
-        let mut first: FxHashMap<&str, (usize, usize)> = FxHashMap::default();
-        let mut fields: Vec<Vec<Option<String>>> = Vec::with_capacity(forms.fields.len());
-        for (f, list) in forms.fields.iter().enumerate() {
-            let mut keys = Vec::with_capacity(list.len());
-            for (i, form) in list.iter().enumerate() {
-                let key = match first.get(form.as_str()) {
-                    Some(&(g, j)) if g < f => fields[g][j].clone(),
-                    _ => {
-                        first.insert(form, (f, i));
-                        analyzer.key(form).map(Cow::into_owned)
-                    }
-                };
-                keys.push(key);
-            }
-            fields.push(keys);
-        }
-        FormKeys { fields }
+        let (distinct, places) = distinct_forms(forms);
+        let keys = distinct
+            .par_iter()
+            .map(|f| analyzer.key(f).map(Cow::into_owned))
+            .collect();
+        FormKeys { keys, places }
     }
+
+    /// Both sides' keys. With the same stemmer, a form no rule of either side names is
+    /// stemmed once for both: most forms, so most of the stemming is shared.
+    pub fn compute_pair(
+        base: &Analyzer,
+        head: &Analyzer,
+        forms: &SurfaceForms,
+    ) -> (FormKeys, FormKeys) {
+        if !base.same_stemmer(head) {
+            return (
+                FormKeys::compute(base, forms),
+                FormKeys::compute(head, forms),
+            );
+        }
+        let (distinct, places) = distinct_forms(forms);
+        let (base_keys, head_keys): (Vec<_>, Vec<_>) = distinct
+            .par_iter()
+            .map(|f| {
+                let b = base.key(f).map(Cow::into_owned);
+                let h = if base.stems_plainly(f) && head.stems_plainly(f) {
+                    b.clone()
+                } else {
+                    head.key(f).map(Cow::into_owned)
+                };
+                (b, h)
+            })
+            .unzip();
+        (
+            FormKeys {
+                keys: base_keys,
+                places: places.clone(),
+            },
+            FormKeys {
+                keys: head_keys,
+                places,
+            },
+        )
+    }
+
+    /// The key of the `i`-th form of `field`.
+    pub fn key(&self, field: usize, i: usize) -> Option<&str> {
+        self.keys[self.places[field][i] as usize].as_deref()
+    }
+}
+
+/// The distinct forms of all fields (sorted), and each field form's place among them.
+fn distinct_forms(forms: &SurfaceForms) -> (Vec<&str>, Vec<Vec<u32>>) {
+    let mut distinct: Vec<&str> = forms.fields.iter().flatten().map(String::as_str).collect();
+    distinct.par_sort_unstable();
+    distinct.dedup();
+    let places = forms
+        .fields
+        .iter()
+        .map(|list| {
+            // Both lists are sorted: one forward walk finds every place.
+            let mut at = 0;
+            list.iter()
+                .map(|form| {
+                    at += distinct[at..].partition_point(|d| *d < form.as_str());
+                    at as u32
+                })
+                .collect()
+        })
+        .collect();
+    (distinct, places)
 }
 
 /// One ruleset's conflation groups over a surface index.
@@ -84,13 +143,13 @@ pub struct ConflatedKeys<'a> {
     members: Vec<FxHashMap<String, Vec<u32>>>,
     lengths: Vec<Vec<u32>>,
     /// Per field: key → its members' union, with and without positions.
-    /// (Behind locks: queries are evaluated in parallel.)
-    cache: Mutex<Vec<FxHashMap<String, Arc<Postings>>>>,
-    freq_cache: Mutex<Vec<FxHashMap<String, Arc<Frequencies>>>>,
+    cache: ReadCache<Postings>,
+    freq_cache: ReadCache<Frequencies>,
 }
 
-/// Unions kept per cache before it is emptied.
-const CACHE_ENTRIES: usize = 100_000;
+/// Positions, and separately postings, of unions kept before a cache is emptied: about
+/// 16 MiB and 32 MiB per side.
+const UNION_BUDGET: usize = 4 << 20;
 
 impl<'a> ConflatedKeys<'a> {
     pub fn new(
@@ -113,11 +172,11 @@ impl<'a> ConflatedKeys<'a> {
             let mut groups: FxHashMap<String, Vec<u32>> = FxHashMap::default();
             let mut len = index.lengths(field).to_vec();
             for (i, form) in list.iter().enumerate() {
-                match &keys.fields[field][i] {
-                    Some(key) => match groups.get_mut(key.as_str()) {
+                match keys.key(field, i) {
+                    Some(key) => match groups.get_mut(key) {
                         Some(group) => group.push(i as u32),
                         None => {
-                            groups.insert(key.clone(), vec![i as u32]);
+                            groups.insert(key.to_string(), vec![i as u32]);
                         }
                     },
                     None => {
@@ -136,8 +195,8 @@ impl<'a> ConflatedKeys<'a> {
             index,
             forms,
             members,
-            cache: Mutex::new(vec![FxHashMap::default(); lengths.len()]),
-            freq_cache: Mutex::new(vec![FxHashMap::default(); lengths.len()]),
+            cache: ReadCache::new(lengths.len(), UNION_BUDGET),
+            freq_cache: ReadCache::new(lengths.len(), UNION_BUDGET),
             lengths,
         })
     }
@@ -156,25 +215,6 @@ impl<'a> ConflatedKeys<'a> {
     }
 }
 
-type Cache<T> = Mutex<Vec<FxHashMap<String, Arc<T>>>>;
-
-fn cached<T>(cache: &Cache<T>, field: usize, key: &str) -> Option<Arc<T>> {
-    let cache = cache
-        .lock()
-        .unwrap_or_else(|poisoned| poisoned.into_inner());
-    cache[field].get(key).map(Arc::clone)
-}
-
-fn remember<T>(cache: &Cache<T>, field: usize, key: &str, value: &Arc<T>) {
-    let mut cache = cache
-        .lock()
-        .unwrap_or_else(|poisoned| poisoned.into_inner());
-    if cache[field].len() >= CACHE_ENTRIES {
-        cache[field].clear();
-    }
-    cache[field].insert(key.to_string(), Arc::clone(value));
-}
-
 impl KeySource for ConflatedKeys<'_> {
     fn num_docs(&self) -> u32 {
         self.index.num_docs()
@@ -189,7 +229,7 @@ impl KeySource for ConflatedKeys<'_> {
     }
 
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
-        if let Some(hit) = cached(&self.cache, field, key) {
+        if let Some(hit) = self.cache.get(field, key) {
             return Ok(hit);
         }
         let parts = self
@@ -200,14 +240,16 @@ impl KeySource for ConflatedKeys<'_> {
             [one] => Arc::clone(one),
             _ => Arc::new(Postings::union(&parts)),
         };
-        remember(&self.cache, field, key, &union);
+        if parts.len() > 1 {
+            self.cache.put(field, key, &union, union.positions.len());
+        }
         Ok(union)
     }
 
     /// A group's tfs are its members' summed: each position holds one surface form, so
     /// members never share a position.
     fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
-        if let Some(hit) = cached(&self.freq_cache, field, key) {
+        if let Some(hit) = self.freq_cache.get(field, key) {
             return Ok(hit);
         }
         let parts = self
@@ -218,7 +260,9 @@ impl KeySource for ConflatedKeys<'_> {
             [one] => Arc::clone(one),
             _ => Arc::new(Frequencies::sum(&parts)),
         };
-        remember(&self.freq_cache, field, key, &sum);
+        if parts.len() > 1 {
+            self.freq_cache.put(field, key, &sum, sum.len());
+        }
         Ok(sum)
     }
 
@@ -263,5 +307,72 @@ impl KeySource for DirectKeys<'_> {
 
     fn keys(&self, field: usize) -> Vec<String> {
         self.index.terms(field).unwrap_or_default()
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::analysis::tests::analyzer;
+
+    fn forms(fields: &[&[&str]]) -> SurfaceForms {
+        SurfaceForms {
+            fields: fields
+                .iter()
+                .map(|f| {
+                    let mut v: Vec<String> = f.iter().map(|s| s.to_string()).collect();
+                    v.sort();
+                    v
+                })
+                .collect(),
+        }
+    }
+
+    fn all_keys(keys: &FormKeys, forms: &SurfaceForms) -> Vec<Vec<Option<String>>> {
+        forms
+            .fields
+            .iter()
+            .enumerate()
+            .map(|(f, list)| {
+                (0..list.len())
+                    .map(|i| keys.key(f, i).map(str::to_string))
+                    .collect()
+            })
+            .collect()
+    }
+
+    /// Sharing the stemming between the sides changes no key: each side's keys are what
+    /// that side alone computes, stopwords, exemptions and lemma overrides included.
+    #[test]
+    fn paired_keys_equal_each_side_alone() {
+        let base = analyzer("pipeline:\n  stemmer: english\n  stopwords: [the]\n");
+        let head = analyzer(
+            "pipeline:\n  stemmer: english\n  stopwords: [the, running]\n\
+             exempt: [universal]\nlemmas:\n  - {form: mice, lemma: mouse}\n",
+        );
+        let forms = forms(&[
+            &["the", "running", "runs", "universal", "university", "mice"],
+            &["runs", "mouse", "universe", "the", "ran"],
+        ]);
+        let (b, h) = FormKeys::compute_pair(&base, &head, &forms);
+        assert_eq!(
+            all_keys(&b, &forms),
+            all_keys(&FormKeys::compute(&base, &forms), &forms)
+        );
+        assert_eq!(
+            all_keys(&h, &forms),
+            all_keys(&FormKeys::compute(&head, &forms), &forms)
+        );
+        assert_eq!(
+            h.key(
+                0,
+                forms.fields[0]
+                    .iter()
+                    .position(|f| f == "universal")
+                    .unwrap()
+            ),
+            Some("universal")
+        );
+        assert_eq!(b.key(1, 0), Some("mous"));
     }
 }

@@ -51,6 +51,12 @@
 //! every posting is scored into dense per-document accumulators reused across queries.
 //! Both sum a document's score in the same order (clauses in query order, fields in field
 //! order), so the two strategies cannot be told apart in the scores.
+//!
+//! A clause without a phrase reads documents and tfs only (a group's tfs are its members'
+//! summed, as members never share a position); positions are read for phrases alone.
+//! Only the top k of each side is ranked; gained and lost documents come from merging the
+//! two document-ordered match lists. Queries are evaluated in parallel and folded into the
+//! report in log order, so the output does not depend on the number of threads.
 
 mod attribution;
 mod change;
@@ -276,16 +282,20 @@ pub fn run(
         Some(o) => Some(SurfaceForms::read(&o.postings)?),
         None => None,
     };
-    // Each side keys every surface form once (the two sides in parallel); the change set
-    // and the conflation groups share those keys.
+    // Each side keys every surface form once (shared stemming where the rules allow); the
+    // change set and the conflation groups share those keys.
     let (head_postings, head_forms) = match (&opened_head, &forms_head) {
         (Some(o), Some(f)) => (&o.postings, f),
         _ => (&opened_base.postings, &forms_base),
     };
-    let (keys_base, keys_head) = rayon::join(
-        || FormKeys::compute(base_a, &forms_base),
-        || FormKeys::compute(head_a, head_forms),
-    );
+    let (keys_base, keys_head) = if same_surface {
+        FormKeys::compute_pair(base_a, head_a, &forms_base)
+    } else {
+        rayon::join(
+            || FormKeys::compute(base_a, &forms_base),
+            || FormKeys::compute(head_a, head_forms),
+        )
+    };
     let change = ChangeSet::from_keys(
         base_a,
         head_a,
