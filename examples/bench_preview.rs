@@ -67,7 +67,7 @@ fn main() {
         PathBuf::from(arg(&args, "--cache").unwrap_or_else(|| "/tmp/lexdelta-bench-cache".into()));
 
     let started = Instant::now();
-    let corpus = read_documents(&data.join("documents.jsonl"), &DocOptions::default()).unwrap();
+    let mut corpus = read_documents(&data.join("documents.jsonl"), &DocOptions::default()).unwrap();
     let log = read_queries(&data.join("queries.jsonl")).unwrap();
     let read_secs = started.elapsed().as_secs_f64();
 
@@ -196,6 +196,10 @@ fn main() {
                 cache_dir: Some(cache.clone()),
                 ..PreviewOptions::default()
             };
+            // As the CLI does: the texts are dropped once the index is open.
+            let indexes =
+                preview::open_indexes(&corpus, &base, &head, &options, &NoProgress).unwrap();
+            corpus.drop_texts();
             let input = PreviewInput {
                 base: Arc::new(base),
                 head: Arc::new(head),
@@ -203,7 +207,9 @@ fn main() {
                 queries: &log,
                 judged: None,
             };
-            let report = preview::run(input, &options, &NoProgress).unwrap().report;
+            let report = preview::run_opened(input, indexes, &options)
+                .unwrap()
+                .report;
             let e = &report.evaluation;
             println!(
                 "evaluated {} of {} queries, {} changed, {} forms change key, index {}",

@@ -72,8 +72,11 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let dir = |given: &Option<PathBuf>, demo: &str| given.clone().unwrap_or_else(|| demo.into());
     let base = Arc::new(Analyzer::load(&dir(&args.base, DEMO_BASE))?);
     let head = Arc::new(Analyzer::load(&dir(&args.head, DEMO_HEAD))?);
-    let loaded = args.sample.load(args.docs, args.runs.is_some())?;
+    let mut loaded = args.sample.load(args.docs, args.runs.is_some())?;
     let options = loaded.options;
+    let indexes = preview::open_indexes(&loaded.corpus, &base, &head, &options, &bar())?;
+    // The index holds what retrieval reads: the texts go before the queries are run.
+    loaded.corpus.drop_texts();
     let input = PreviewInput {
         base,
         head,
@@ -81,7 +84,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         queries: &loaded.log,
         judged: loaded.judged,
     };
-    let outcome = preview::run(input, &options, &bar())?;
+    let outcome = preview::run_opened(input, indexes, &options)?;
     if let (Some(dir), Some(runs)) = (&args.runs, &outcome.runs) {
         std::fs::create_dir_all(dir)
             .map_err(|e| CliError(format!("{}: {e}", dir.display()), false))?;

@@ -99,6 +99,15 @@ pub struct Corpus {
 }
 
 impl Corpus {
+    /// Frees every document's texts, keeping ids, titles and the fingerprint: what a
+    /// preview needs once its index is open. A million documents' texts are most of the
+    /// memory a preview would otherwise hold.
+    pub fn drop_texts(&mut self) {
+        for document in &mut self.documents {
+            document.texts = Vec::new();
+        }
+    }
+
     pub fn len(&self) -> usize {
         self.documents.len()
     }

@@ -262,21 +262,56 @@ fn ruleset_info(a: &Analyzer) -> RulesetInfo {
     }
 }
 
+/// The surface indexes a preview reads: one, or one per side when the surface settings
+/// differ. Once they are open, the documents' texts are no longer needed
+/// ([`Corpus::drop_texts`](crate::corpus::Corpus::drop_texts) frees them).
+pub struct OpenedIndexes {
+    base: Opened,
+    head: Option<Opened>,
+}
+
+/// Opens (building when the cache has none) the surface indexes of both sides.
+pub fn open_indexes(
+    corpus: &Corpus,
+    base: &Analyzer,
+    head: &Analyzer,
+    options: &PreviewOptions,
+    progress: &dyn Progress,
+) -> Result<OpenedIndexes, PreviewError> {
+    let same_surface = base.surface().fingerprint() == head.surface().fingerprint();
+    Ok(OpenedIndexes {
+        base: open(corpus, base, options, progress)?,
+        head: if same_surface {
+            None
+        } else {
+            Some(open(corpus, head, options, progress)?)
+        },
+    })
+}
+
 /// Runs a preview.
 pub fn run(
     input: PreviewInput<'_>,
     options: &PreviewOptions,
     progress: &dyn Progress,
 ) -> Result<PreviewOutcome, PreviewError> {
+    let indexes = open_indexes(input.corpus, &input.base, &input.head, options, progress)?;
+    run_opened(input, indexes, options)
+}
+
+/// Runs a preview on indexes already open (the corpus's texts may have been dropped).
+pub fn run_opened(
+    input: PreviewInput<'_>,
+    indexes: OpenedIndexes,
+    options: &PreviewOptions,
+) -> Result<PreviewOutcome, PreviewError> {
     let corpus = input.corpus;
     let (base_a, head_a) = (&*input.base, &*input.head);
-    let same_surface = base_a.surface().fingerprint() == head_a.surface().fingerprint();
-    let opened_base = open(corpus, base_a, options, progress)?;
-    let opened_head = if same_surface {
-        None
-    } else {
-        Some(open(corpus, head_a, options, progress)?)
-    };
+    let same_surface = indexes.head.is_none();
+    let OpenedIndexes {
+        base: opened_base,
+        head: opened_head,
+    } = indexes;
     let forms_base = SurfaceForms::read(&opened_base.postings)?;
     let forms_head = match &opened_head {
         Some(o) => Some(SurfaceForms::read(&o.postings)?),

@@ -421,9 +421,10 @@ fn score_clauses(
 }
 
 /// All clauses must match: the candidates are the documents of the rarest clause, and each
-/// further clause only looks its candidates up (galloping through its sorted postings)
-/// instead of scoring every posting, so a frequent term costs what the rare one allows.
-/// Scores are summed in query order, field by field, exactly as [`score_clauses`] does.
+/// further clause only looks its candidates up (galloping through its sorted postings), so
+/// a frequent term costs what the rare one allows. Only the documents left after every
+/// clause are scored. Scores are summed in query order, field by field, exactly as
+/// [`score_clauses`] does.
 fn retrieve_all(
     query: &AnalyzedQuery,
     source: &dyn KeySource,
@@ -443,40 +444,35 @@ fn retrieve_all(
     let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
     let mut by_size: Vec<usize> = (0..lists.len()).collect();
     by_size.sort_by_key(|&c| (size(&lists[c]), c));
-    let clauses = lists.len();
     let mut candidates = union_of_docs(&lists[by_size[0]]);
-    let mut contrib = vec![0.0f64; candidates.len() * clauses];
-    for &c in &by_size {
+    for &c in &by_size[1..] {
         let mut matched = vec![false; candidates.len()];
-        for (field, list) in lists[c].iter().enumerate() {
-            if list.is_empty() {
-                continue;
-            }
-            let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
-            let mut from = 0;
-            for (i, &doc) in candidates.iter().enumerate() {
-                from = gallop(&list.docs, from, doc);
-                if from == list.docs.len() {
-                    break;
-                }
-                if list.docs[from] == doc {
-                    contrib[i * clauses + c] += scorer.score(doc, list.tfs[from]);
-                    matched[i] = true;
-                }
-            }
+        for list in &lists[c] {
+            for_each_found(&candidates, list, |i, _| matched[i] = true);
         }
         let mut kept = 0;
         for i in 0..candidates.len() {
             if matched[i] {
                 candidates[kept] = candidates[i];
-                contrib.copy_within(i * clauses..(i + 1) * clauses, kept * clauses);
                 kept += 1;
             }
         }
         candidates.truncate(kept);
-        contrib.truncate(kept * clauses);
         if kept == 0 {
-            break;
+            return Ok(Vec::new());
+        }
+    }
+    let clauses = lists.len();
+    let mut contrib = vec![0.0f64; candidates.len() * clauses];
+    for (c, fields) in lists.iter().enumerate() {
+        for (field, list) in fields.iter().enumerate() {
+            if list.is_empty() {
+                continue;
+            }
+            let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
+            for_each_found(&candidates, list, |i, j| {
+                contrib[i * clauses + c] += scorer.score(candidates[i], list.tfs[j]);
+            });
         }
     }
     Ok(candidates
@@ -489,6 +485,21 @@ fn retrieve_all(
                 .fold(0.0, |sum, s| sum + s),
         })
         .collect())
+}
+
+/// Calls `found(i, j)` for every candidate `i` (ascending documents) that `list` holds, at
+/// its index `j` in the list.
+fn for_each_found(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(usize, usize)) {
+    let mut from = 0;
+    for (i, &doc) in candidates.iter().enumerate() {
+        from = gallop(&list.docs, from, doc);
+        if from == list.docs.len() {
+            break;
+        }
+        if list.docs[from] == doc {
+            found(i, from);
+        }
+    }
 }
 
 /// The documents of any of these lists (each ascending), ascending, without repeats.
