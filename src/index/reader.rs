@@ -194,9 +194,9 @@ pub struct IndexPostings {
 }
 
 /// Positions, and separately postings, kept in the read caches before they are emptied:
-/// with a 4-byte position and an 8-byte posting, at most about 32 MiB and 64 MiB. A
-/// million-document corpus must preview in well under 2 GiB, the corpus itself included.
-const CACHE_BUDGET: usize = 8 << 20;
+/// with a 4-byte position and an 8-byte posting, at most about 64 MiB and 128 MiB: a
+/// million-document preview stays well under 2 GiB.
+const CACHE_BUDGET: usize = 16 << 20;
 
 /// Values already computed, per field and term, up to a budget of `size` units (the caller
 /// says what a value costs); emptied when full. Shared by parallel readers.

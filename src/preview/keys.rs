@@ -148,8 +148,8 @@ pub struct ConflatedKeys<'a> {
 }
 
 /// Positions, and separately postings, of unions kept before a cache is emptied: about
-/// 16 MiB and 32 MiB per side.
-const UNION_BUDGET: usize = 4 << 20;
+/// 32 MiB and 64 MiB per side.
+const UNION_BUDGET: usize = 8 << 20;
 
 impl<'a> ConflatedKeys<'a> {
     pub fn new(
