@@ -163,7 +163,9 @@ fn main() {
                 let postings = IndexPostings::open(&index, corpus.fields.len()).unwrap();
                 let keys = DirectKeys::new(&postings);
                 let stats = Stats::compute(&keys, &scoring).unwrap();
-                let side: Vec<Vec<(u32, f64)>> = log
+                // Each query's ranking is kept as a hash: a million documents' full hit
+                // lists for every query would not fit in memory.
+                let side: Vec<blake3::Hash> = log
                     .queries
                     .iter()
                     .map(|q| {
@@ -176,7 +178,12 @@ fn main() {
                             &order,
                         )
                         .unwrap();
-                        hits.iter().map(|h| (h.doc, h.score)).collect()
+                        let mut hasher = blake3::Hasher::new();
+                        for h in &hits {
+                            hasher.update(&h.doc.to_le_bytes());
+                            hasher.update(&h.score.to_bits().to_le_bytes());
+                        }
+                        hasher.finalize()
                     })
                     .collect();
                 results.push(side);

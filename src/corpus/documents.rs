@@ -2,6 +2,7 @@
 
 use std::collections::HashSet;
 use std::fs;
+use std::io::{BufRead, BufReader};
 use std::path::{Path, PathBuf};
 
 use rand::SeedableRng;
@@ -126,8 +127,11 @@ pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, Corpu
             .unwrap_or_default()
             .as_bytes(),
     );
+    let is_csv = path.extension().and_then(|e| e.to_str()) == Some("csv");
     let documents = if path.is_dir() {
         read_directory(path, options, &mut hasher)?
+    } else if !is_csv {
+        stream_json_lines(path, options, &mut hasher)?
     } else {
         let bytes = fs::read(path).map_err(|source| CorpusError::Io {
             path: path.to_path_buf(),
@@ -141,10 +145,7 @@ pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, Corpu
                 e.utf8_error().valid_up_to()
             ),
         })?;
-        match path.extension().and_then(|e| e.to_str()) {
-            Some("csv") => read_csv(path, &text, options)?,
-            _ => read_json_lines(path, &text, options)?,
-        }
+        read_csv(path, &text, options)?
     };
     check_unique_ids(path, &documents)?;
     let documents = apply_sample(documents, options);
@@ -156,17 +157,43 @@ pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, Corpu
     })
 }
 
-fn read_json_lines(
+/// JSON Lines read line by line, every byte hashed as read: the file is never held whole
+/// beside its documents (a million documents would otherwise need twice their size).
+fn stream_json_lines(
     path: &Path,
-    text: &str,
     options: &DocOptions,
+    hasher: &mut blake3::Hasher,
 ) -> Result<Vec<Document>, CorpusError> {
+    let io = |source| CorpusError::Io {
+        path: path.to_path_buf(),
+        source,
+    };
+    let mut reader = BufReader::with_capacity(1 << 20, fs::File::open(path).map_err(io)?);
     let mut out = Vec::new();
-    for (i, line) in text.lines().enumerate() {
-        if line.trim().is_empty() {
-            continue;
+    let mut line = Vec::new();
+    let (mut i, mut offset) = (0usize, 0usize);
+    loop {
+        line.clear();
+        let read = reader.read_until(b'\n', &mut line).map_err(io)?;
+        if read == 0 {
+            break;
         }
-        out.push(parse_json_line(path, i, line, options)?);
+        hasher.update(&line);
+        let text = std::str::from_utf8(&line).map_err(|e| CorpusError::Invalid {
+            path: path.to_path_buf(),
+            message: format!(
+                "not UTF-8 text (invalid byte at offset {}, line {})",
+                offset + e.valid_up_to(),
+                i + 1
+            ),
+        })?;
+        let text = text.strip_suffix('\n').unwrap_or(text);
+        let text = text.strip_suffix('\r').unwrap_or(text);
+        if !text.trim().is_empty() {
+            out.push(parse_json_line(path, i, text, options)?);
+        }
+        offset += read;
+        i += 1;
     }
     Ok(out)
 }

@@ -52,6 +52,7 @@ impl SurfaceForms {
 /// Every surface form's key under one ruleset (`None`: a stopword). Computed once per side
 /// and shared by the change set and that side's conflation groups; a form found in
 /// several fields is keyed once.
+#[derive(Debug, PartialEq, Eq)]
 pub struct FormKeys {
     /// Per distinct form (sorted over all fields), its key.
     keys: Vec<Option<String>>,

@@ -194,26 +194,28 @@ struct QueryOutcome {
     change: Option<QueryChange>,
 }
 
-struct Side<'a> {
-    analyzer: &'a Analyzer,
+/// A ruleset's view of the index: its conflation groups and their statistics.
+struct View<'a> {
     keys: ConflatedKeys<'a>,
     stats: Stats,
 }
 
-fn make_side<'a>(
+impl<'a> View<'a> {
+    fn new(
+        postings: &'a IndexPostings,
+        forms: &'a SurfaceForms,
+        form_keys: &FormKeys,
+        scoring: &Scoring,
+    ) -> Result<View<'a>, IndexError> {
+        let keys = ConflatedKeys::with_keys(postings, forms, form_keys)?;
+        let stats = Stats::compute(&keys, scoring)?;
+        Ok(View { keys, stats })
+    }
+}
+
+struct Side<'a> {
     analyzer: &'a Analyzer,
-    postings: &'a IndexPostings,
-    forms: &'a SurfaceForms,
-    form_keys: &FormKeys,
-    scoring: &Scoring,
-) -> Result<Side<'a>, IndexError> {
-    let keys = ConflatedKeys::with_keys(postings, forms, form_keys)?;
-    let stats = Stats::compute(&keys, scoring)?;
-    Ok(Side {
-        analyzer,
-        keys,
-        stats,
-    })
+    view: &'a View<'a>,
 }
 
 struct Opened {
@@ -336,16 +338,39 @@ pub fn run_opened(
         head_a,
         same_surface.then_some((&forms_base, (&keys_base, &keys_head))),
     );
-    let side = |a, postings, forms, keys| make_side(a, postings, forms, keys, &options.scoring);
-    let base = side(base_a, &opened_base.postings, &forms_base, &keys_base)?;
-    let head = side(head_a, head_postings, head_forms, &keys_head)?;
+    let base_view = View::new(
+        &opened_base.postings,
+        &forms_base,
+        &keys_base,
+        &options.scoring,
+    )?;
+    // When every form keeps its key (a synonym edit, say), the head sees the index exactly
+    // as the base does: one view serves both, its unions merged once.
+    let head_view = if same_surface && keys_base == keys_head {
+        None
+    } else {
+        Some(View::new(
+            head_postings,
+            head_forms,
+            &keys_head,
+            &options.scoring,
+        )?)
+    };
+    let base = Side {
+        analyzer: base_a,
+        view: &base_view,
+    };
+    let head = Side {
+        analyzer: head_a,
+        view: head_view.as_ref().unwrap_or(&base_view),
+    };
 
     let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
     let order = DocOrder::by_id(&ids);
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
     // Hits in document order; only the top k is ever ranked.
     let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery| {
-        matches(q, &s.keys, &s.stats, &options.scoring, &weights)
+        matches(q, &s.view.keys, &s.view.stats, &options.scoring, &weights)
     };
 
     // Judged query texts → ids; judged texts missing from the log are run too.

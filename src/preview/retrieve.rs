@@ -5,6 +5,7 @@ use std::fmt;
 use std::str::FromStr;
 use std::sync::Arc;
 
+use rayon::prelude::*;
 use serde::Serialize;
 
 use super::keys::KeySource;
@@ -184,7 +185,7 @@ pub struct DocOrder(Vec<u32>);
 impl DocOrder {
     pub fn by_id(ids: &[String]) -> DocOrder {
         let mut order: Vec<u32> = (0..ids.len() as u32).collect();
-        order.sort_by(|&a, &b| ids[a as usize].cmp(&ids[b as usize]).then(a.cmp(&b)));
+        order.par_sort_unstable_by(|&a, &b| ids[a as usize].cmp(&ids[b as usize]).then(a.cmp(&b)));
         let mut place = vec![0u32; ids.len()];
         for (i, doc) in order.into_iter().enumerate() {
             place[doc as usize] = i as u32;
