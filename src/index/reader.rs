@@ -201,9 +201,12 @@ const CACHE_BUDGET: usize = 16 << 20;
 /// Values already computed, per field and term, up to a budget of `size` units (the caller
 /// says what a value costs); emptied when full. Shared by parallel readers.
 pub struct ReadCache<T> {
-    inner: Mutex<(Vec<FxHashMap<String, Arc<T>>>, usize)>,
+    inner: Mutex<Held<T>>,
     budget: usize,
 }
+
+/// Per field, term → value; and the units held.
+type Held<T> = (Vec<FxHashMap<String, Arc<T>>>, usize);
 
 impl<T> ReadCache<T> {
     pub fn new(fields: usize, budget: usize) -> Self {
