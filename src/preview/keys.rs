@@ -207,6 +207,32 @@ impl<'a> ConflatedKeys<'a> {
         self.member_forms(field, key).collect()
     }
 
+    /// A key's members read with `read` and combined with `combine` (which also says what
+    /// the result costs the cache); a single member is the index's own copy.
+    fn group<T>(
+        &self,
+        cache: &ReadCache<T>,
+        field: usize,
+        key: &str,
+        read: impl Fn(&IndexPostings, usize, &str) -> Result<Arc<T>, IndexError>,
+        combine: impl Fn(&[Arc<T>]) -> (T, usize),
+    ) -> Result<Arc<T>, IndexError> {
+        if let Some(hit) = cache.get(field, key) {
+            return Ok(hit);
+        }
+        let parts = self
+            .member_forms(field, key)
+            .map(|form| read(self.index, field, form))
+            .collect::<Result<Vec<_>, _>>()?;
+        if let [one] = parts.as_slice() {
+            return Ok(Arc::clone(one));
+        }
+        let (combined, size) = combine(&parts);
+        let combined = Arc::new(combined);
+        cache.put(field, key, &combined, size);
+        Ok(combined)
+    }
+
     fn member_forms(&self, field: usize, key: &str) -> impl Iterator<Item = &str> {
         self.members[field]
             .get(key)
@@ -230,41 +256,27 @@ impl KeySource for ConflatedKeys<'_> {
     }
 
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
-        if let Some(hit) = self.cache.get(field, key) {
-            return Ok(hit);
-        }
-        let parts = self
-            .member_forms(field, key)
-            .map(|form| self.index.postings(field, form))
-            .collect::<Result<Vec<_>, _>>()?;
-        let union = match parts.as_slice() {
-            [one] => Arc::clone(one),
-            _ => Arc::new(Postings::union(&parts)),
-        };
-        if parts.len() > 1 {
-            self.cache.put(field, key, &union, union.positions.len());
-        }
-        Ok(union)
+        self.group(&self.cache, field, key, IndexPostings::postings, |parts| {
+            let union = Postings::union(parts);
+            let size = union.positions.len();
+            (union, size)
+        })
     }
 
     /// A group's tfs are its members' summed: each position holds one surface form, so
     /// members never share a position.
     fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
-        if let Some(hit) = self.freq_cache.get(field, key) {
-            return Ok(hit);
-        }
-        let parts = self
-            .member_forms(field, key)
-            .map(|form| self.index.frequencies(field, form))
-            .collect::<Result<Vec<_>, _>>()?;
-        let sum = match parts.as_slice() {
-            [one] => Arc::clone(one),
-            _ => Arc::new(Frequencies::sum(&parts)),
-        };
-        if parts.len() > 1 {
-            self.freq_cache.put(field, key, &sum, sum.len());
-        }
-        Ok(sum)
+        self.group(
+            &self.freq_cache,
+            field,
+            key,
+            IndexPostings::frequencies,
+            |parts| {
+                let sum = Frequencies::sum(parts);
+                let size = sum.len();
+                (sum, size)
+            },
+        )
     }
 
     fn keys(&self, field: usize) -> Vec<String> {
