@@ -6,7 +6,8 @@ use std::sync::Arc;
 
 use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
-use lexdelta::preview::{self, PreviewInput};
+use lexdelta::index::IndexError;
+use lexdelta::preview::{self, PreviewError, PreviewInput};
 use lexdelta::report::preview_text::Limits;
 use lexdelta::report::{ColorChoice, Style, preview_json, preview_text};
 
@@ -72,9 +73,18 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let dir = |given: &Option<PathBuf>, demo: &str| given.clone().unwrap_or_else(|| demo.into());
     let base = Arc::new(Analyzer::load(&dir(&args.base, DEMO_BASE))?);
     let head = Arc::new(Analyzer::load(&dir(&args.head, DEMO_HEAD))?);
-    let mut loaded = args.sample.load(args.docs, args.runs.is_some())?;
-    let options = loaded.options;
-    let indexes = preview::open_indexes(&loaded.corpus, &base, &head, &options, &bar())?;
+    // With a cache, the documents are first read without their texts: a cached index holds
+    // all retrieval reads. Only when the cache has no index are they read again, in full.
+    let cached = !args.sample.no_cache;
+    let mut loaded = args.sample.load(args.docs, args.runs.is_some(), !cached)?;
+    let options = loaded.options.clone();
+    let indexes = match preview::open_indexes(&loaded.corpus, &base, &head, &options, &bar()) {
+        Err(PreviewError::Index(IndexError::NoTexts)) => {
+            loaded.read_texts()?;
+            preview::open_indexes(&loaded.corpus, &base, &head, &options, &bar())?
+        }
+        opened => opened?,
+    };
     // The index holds what retrieval reads: the texts go before the queries are run.
     loaded.corpus.drop_texts();
     let input = PreviewInput {

@@ -126,7 +126,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     });
     let base = Arc::new(Analyzer::new(load_side(&base_spec, &args.rules)?)?);
     let head = Arc::new(Analyzer::new(load_side(&head_spec, &args.rules)?)?);
-    let loaded = args.sample.load(args.docs, false)?;
+    let loaded = args.sample.load(args.docs, false, true)?;
     let limits = GateLimits {
         max_emptied_searches: args.max_emptied_searches,
         max_lost_traffic_share: args.max_lost_traffic_share,

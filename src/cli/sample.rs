@@ -6,7 +6,8 @@ use std::path::PathBuf;
 
 use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
 use lexdelta::corpus::{
-    Corpus, DocOptions, FieldSpec, QueryLog, Sample, read_documents, read_queries,
+    Corpus, DocOptions, FieldSpec, QueryLog, Sample, read_documents, read_documents_without_texts,
+    read_queries,
 };
 use lexdelta::index::Progress;
 use lexdelta::metrics::{self, RandomizationTest};
@@ -84,19 +85,28 @@ const DEMO_JUDGED_QUERIES: &str = "demo-corpus/judged-queries.tsv";
 /// Everything a preview needs besides the two rulesets.
 pub struct Loaded {
     pub corpus: Corpus,
+    /// Where the corpus was read from and how: to read it again with its texts.
+    corpus_path: PathBuf,
+    doc_options: DocOptions,
     pub log: QueryLog,
     pub judged: Option<JudgedSet>,
     pub options: PreviewOptions,
 }
 
 impl SampleArgs {
-    /// Validates the settings and reads the corpus, queries and judgments.
-    pub fn load(&self, docs_shown: usize, want_runs: bool) -> Result<Loaded, CliError> {
+    /// Validates the settings and reads the corpus, queries and judgments; the documents'
+    /// texts only with `texts` (see [`Loaded::read_texts`]).
+    pub fn load(
+        &self,
+        docs_shown: usize,
+        want_runs: bool,
+        texts: bool,
+    ) -> Result<Loaded, CliError> {
         if self.demo && self.judgments.is_none() {
             let mut with_demo = self.clone();
             with_demo.judgments = Some(DEMO_JUDGMENTS.into());
             with_demo.judged_queries = Some(DEMO_JUDGED_QUERIES.into());
-            return with_demo.load(docs_shown, want_runs);
+            return with_demo.load(docs_shown, want_runs, texts);
         }
         let mode: MatchMode = self
             .mode
@@ -135,7 +145,11 @@ impl SampleArgs {
             (Some(c), Some(q)) => (c.clone(), q.clone()),
             _ => (PathBuf::from(DEMO_CORPUS), PathBuf::from(DEMO_QUERIES)),
         };
-        let corpus = read_documents(&corpus_path, &doc_options)?;
+        let corpus = if texts {
+            read_documents(&corpus_path, &doc_options)?
+        } else {
+            read_documents_without_texts(&corpus_path, &doc_options)?
+        };
         let log = read_queries(&queries_path)?;
         let judged = match &self.judgments {
             None => None,
@@ -175,10 +189,20 @@ impl SampleArgs {
         };
         Ok(Loaded {
             corpus,
+            corpus_path,
+            doc_options,
             log,
             judged,
             options,
         })
+    }
+}
+
+impl Loaded {
+    /// Reads the corpus again, with its texts (the same file, so the same fingerprint).
+    pub fn read_texts(&mut self) -> Result<(), CliError> {
+        self.corpus = read_documents(&self.corpus_path, &self.doc_options)?;
+        Ok(())
     }
 }
 

@@ -109,6 +109,14 @@ impl Corpus {
         }
     }
 
+    /// Whether every document holds the texts of every field (false once they are dropped
+    /// or were never read): an index can be built only from a corpus that has them.
+    pub fn has_texts(&self) -> bool {
+        self.documents
+            .iter()
+            .all(|d| d.texts.len() == self.fields.len())
+    }
+
     pub fn len(&self) -> usize {
         self.documents.len()
     }
@@ -121,6 +129,19 @@ impl Corpus {
 /// Reads documents from `path`: a `.csv` file, a directory of `.txt`/`.md` files, or JSON
 /// Lines (any other file).
 pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, CorpusError> {
+    read(path, options, true)
+}
+
+/// The same documents, ids, titles and fingerprint without their texts, which are
+/// dropped as each document is read: enough for a preview whose index is cached.
+pub fn read_documents_without_texts(
+    path: &Path,
+    options: &DocOptions,
+) -> Result<Corpus, CorpusError> {
+    read(path, options, false)
+}
+
+fn read(path: &Path, options: &DocOptions, texts: bool) -> Result<Corpus, CorpusError> {
     let mut hasher = blake3::Hasher::new();
     hasher.update(
         serde_json::to_string(options)
@@ -131,7 +152,7 @@ pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, Corpu
     let documents = if path.is_dir() {
         read_directory(path, options, &mut hasher)?
     } else if !is_csv {
-        stream_json_lines(path, options, &mut hasher)?
+        stream_json_lines(path, options, texts, &mut hasher)?
     } else {
         let bytes = fs::read(path).map_err(|source| CorpusError::Io {
             path: path.to_path_buf(),
@@ -148,7 +169,10 @@ pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, Corpu
         read_csv(path, &text, options)?
     };
     check_unique_ids(path, &documents)?;
-    let documents = apply_sample(documents, options);
+    let mut documents = apply_sample(documents, options);
+    if !texts {
+        documents.iter_mut().for_each(|d| d.texts = Vec::new());
+    }
     Ok(Corpus {
         source: path.display().to_string(),
         fields: options.fields.clone(),
@@ -162,6 +186,7 @@ pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, Corpu
 fn stream_json_lines(
     path: &Path,
     options: &DocOptions,
+    texts: bool,
     hasher: &mut blake3::Hasher,
 ) -> Result<Vec<Document>, CorpusError> {
     let io = |source| CorpusError::Io {
@@ -190,7 +215,11 @@ fn stream_json_lines(
         let text = text.strip_suffix('\n').unwrap_or(text);
         let text = text.strip_suffix('\r').unwrap_or(text);
         if !text.trim().is_empty() {
-            out.push(parse_json_line(path, i, text, options)?);
+            let mut document = parse_json_line(path, i, text, options)?;
+            if !texts {
+                document.texts = Vec::new();
+            }
+            out.push(document);
         }
         offset += read;
         i += 1;
@@ -402,6 +431,39 @@ mod tests {
         assert_eq!(a, b);
         assert_eq!(a[0].texts, c[0].texts);
         assert_eq!(c[0].id, "a.md");
+    }
+
+    /// Read without texts, a corpus keeps its ids, titles and fingerprint (so it finds the
+    /// same cached index) in every format, and says it has no texts.
+    #[test]
+    fn reading_without_texts_keeps_ids_titles_and_fingerprint() {
+        let dir = tempfile::tempdir().unwrap();
+        let jsonl = dir.path().join("d.jsonl");
+        fs::write(
+            &jsonl,
+            "{\"id\":\"a\",\"title\":\"Lost property\",\"body\":\"Ask at the desk.\"}\r\n\n\
+             {\"id\":\"b\",\"title\":\"Fares\",\"body\":\"Buy a pass.\"}",
+        )
+        .unwrap();
+        let csv = dir.path().join("d.csv");
+        fs::write(&csv, "id,title,body\na,Lost property,Ask at the desk.\n").unwrap();
+        let o = DocOptions::default();
+        for path in [&jsonl, &csv] {
+            let full = read_documents(path, &o).unwrap();
+            let light = read_documents_without_texts(path, &o).unwrap();
+            assert!(full.has_texts() && !light.has_texts());
+            assert_eq!(full.fingerprint, light.fingerprint);
+            let names = |c: &Corpus| -> Vec<(String, String)> {
+                c.documents
+                    .iter()
+                    .map(|d| (d.id.clone(), d.title.clone()))
+                    .collect()
+            };
+            assert_eq!(names(&full), names(&light));
+        }
+        let full = read_documents(&jsonl, &o).unwrap();
+        assert_eq!(full.documents.len(), 2);
+        assert_eq!(full.documents[0].texts[1], "Ask at the desk.");
     }
 
     #[test]

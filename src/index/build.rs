@@ -62,6 +62,9 @@ pub fn build_surface_index(
     dir: Option<&Path>,
     progress: &dyn Progress,
 ) -> Result<Index, IndexError> {
+    if !corpus.has_texts() {
+        return Err(IndexError::NoTexts);
+    }
     let (schema, fields) = schema(corpus.fields.len(), SURFACE_TOKENIZER);
     let index = create(dir, schema)?;
     register_surface(&index, surface);

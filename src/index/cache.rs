@@ -73,6 +73,9 @@ pub fn open_or_build(
     {
         return Ok((found, CacheStatus::Reused, target));
     }
+    if !corpus.has_texts() {
+        return Err(IndexError::NoTexts);
+    }
     fs::create_dir_all(cache_dir).map_err(io(cache_dir))?;
     if target.exists() {
         // Not a complete build: never trusted.
@@ -169,5 +172,20 @@ mod tests {
         assert_eq!(third, CacheStatus::Built);
         let leftovers = fs::read_dir(dir.path()).unwrap().count();
         assert_eq!(leftovers, 1, "temporary build directories are cleaned up");
+    }
+
+    /// A corpus without its texts opens a cached index but never builds (or caches) one.
+    #[test]
+    fn a_corpus_without_texts_reuses_but_never_builds() {
+        let dir = tempfile::tempdir().unwrap();
+        let surface = SurfaceStage::from_pipeline(&Pipeline::default());
+        let mut light = corpus();
+        light.drop_texts();
+        let missing = open_or_build(&light, &surface, dir.path(), &NoProgress);
+        assert!(matches!(missing, Err(IndexError::NoTexts)));
+        assert_eq!(fs::read_dir(dir.path()).map(|d| d.count()).unwrap_or(0), 0);
+        open_or_build(&corpus(), &surface, dir.path(), &NoProgress).unwrap();
+        let (_, status, _) = open_or_build(&light, &surface, dir.path(), &NoProgress).unwrap();
+        assert_eq!(status, CacheStatus::Reused);
     }
 }

@@ -28,6 +28,9 @@ pub use reader::{Frequencies, IndexPostings, Postings, ReadCache};
 pub enum IndexError {
     #[error("index error: {0}")]
     Tantivy(#[from] tantivy::TantivyError),
+    /// The corpus was read without its texts (the cache was expected to hold the index).
+    #[error("the documents were read without their texts, so no index can be built from them")]
+    NoTexts,
     #[error("cannot use the cache at {path}: {source}")]
     Io {
         path: String,
