@@ -201,6 +201,8 @@ impl SampleArgs {
 impl Loaded {
     /// Reads the corpus again, with its texts (the same file, so the same fingerprint).
     pub fn read_texts(&mut self) -> Result<(), CliError> {
+        // The text-free copy goes first: the two need not be held at once.
+        self.corpus.documents = Vec::new();
         self.corpus = read_documents(&self.corpus_path, &self.doc_options)?;
         Ok(())
     }
