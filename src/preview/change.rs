@@ -32,16 +32,8 @@ fn stopword_set(analyzer: &Analyzer) -> Vec<String> {
 }
 
 impl ChangeSet {
-    /// Compares the two rulesets' keys of every surface form of the index (`None` when
+    /// Compares both sides' keys of every surface form of the shared index (`None` when
     /// the surface settings differ and each side has its own index).
-    pub fn compute(base: &Analyzer, head: &Analyzer, forms: Option<&SurfaceForms>) -> ChangeSet {
-        let keys = forms.map(|f| FormKeys::compute_pair(base, head, f));
-        let shared = forms.zip(keys.as_ref().map(|(b, h)| (b, h)));
-        ChangeSet::from_keys(base, head, shared)
-    }
-
-    /// The same from both sides' keys of the shared surface forms (`None`: each side has
-    /// its own index).
     pub fn from_keys(
         base: &Analyzer,
         head: &Analyzer,
