@@ -13,7 +13,8 @@
 //! - `plain`: one plain tantivy build of the corpus (surface tokenizer, positions), nothing else;
 //! - `naive`: index the corpus once per ruleset with the real analyzer and run every query on both;
 //! - `cold`: `preview` with an empty cache (builds the surface index);
-//! - `warm`: `preview` with the cache filled (run `cold` first with the same `--cache`).
+//! - `warm`: `preview` with the cache filled (run `cold` first with the same `--cache`);
+//!   as in the CLI, the documents are read without their texts.
 //!
 //! Prints `mode change seconds` and a few counts on stdout. Measure peak memory with
 //! `/usr/bin/time -v` (maximum resident set size), one mode per process.
@@ -25,7 +26,9 @@ use std::time::Instant;
 
 use lexdelta::analysis::Analyzer;
 use lexdelta::analysis::tantivy::SurfaceTokenizer;
-use lexdelta::corpus::{DocOptions, read_documents, read_queries};
+use lexdelta::corpus::{
+    Corpus, DocOptions, read_documents, read_documents_without_texts, read_queries,
+};
 use lexdelta::index::{IndexPostings, NoProgress, build_key_index};
 use lexdelta::preview::{
     self, DirectKeys, DocOrder, PreviewInput, PreviewOptions, Scoring, Stats, retrieve,
@@ -35,6 +38,10 @@ use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
 use tantivy::schema::{IndexRecordOption, Schema, TextFieldIndexing, TextOptions};
 use tantivy::{Index, TantivyDocument};
+
+// The allocator the CLI uses (src/main.rs), so the figures are the CLI's.
+#[global_allocator]
+static GLOBAL: mimalloc::MiMalloc = mimalloc::MiMalloc;
 
 const PIPELINE: &str =
     "pipeline:\n  stemmer: english\n  stopwords: [a, an, and, the, of, to, in, is, for, on]\n";
@@ -52,6 +59,18 @@ fn analyzer(extra: &str) -> Analyzer {
     Analyzer::new(rs).unwrap()
 }
 
+/// The first `n` documents with their texts (read from a copy of the first `n` lines).
+fn first_documents(path: &std::path::Path, n: usize) -> Corpus {
+    use std::io::{BufRead, Write};
+    let file = std::io::BufReader::new(std::fs::File::open(path).unwrap());
+    let mut head = tempfile::NamedTempFile::with_suffix(".jsonl").unwrap();
+    for line in file.lines().take(n) {
+        writeln!(head, "{}", line.unwrap()).unwrap();
+    }
+    head.flush().unwrap();
+    read_documents(head.path(), &DocOptions::default()).unwrap()
+}
+
 fn arg(args: &[String], name: &str) -> Option<String> {
     args.iter()
         .position(|a| a == name)
@@ -67,7 +86,13 @@ fn main() {
         PathBuf::from(arg(&args, "--cache").unwrap_or_else(|| "/tmp/lexdelta-bench-cache".into()));
 
     let started = Instant::now();
-    let mut corpus = read_documents(&data.join("documents.jsonl"), &DocOptions::default()).unwrap();
+    let documents = data.join("documents.jsonl");
+    // As the CLI does: with the index cached, the documents are read without their texts.
+    let mut corpus = if mode == "warm" {
+        read_documents_without_texts(&documents, &DocOptions::default()).unwrap()
+    } else {
+        read_documents(&documents, &DocOptions::default()).unwrap()
+    };
     let log = read_queries(&data.join("queries.jsonl")).unwrap();
     let read_secs = started.elapsed().as_secs_f64();
 
@@ -92,7 +117,7 @@ fn main() {
         _ => {
             // Exempt the most frequent 1% of the surface forms (counted on a slice).
             let mut counts: HashMap<String, u64> = HashMap::new();
-            for d in corpus.documents.iter().take(20_000) {
+            for d in first_documents(&documents, 20_000).documents.iter() {
                 for t in &d.texts {
                     for tok in base.surface().tokens(t) {
                         *counts.entry(tok.form).or_default() += 1;
@@ -206,7 +231,9 @@ fn main() {
             // As the CLI does: the texts are dropped once the index is open.
             let indexes =
                 preview::open_indexes(&corpus, &base, &head, &options, &NoProgress).unwrap();
-            corpus.drop_texts();
+            if corpus.has_texts() {
+                corpus.drop_texts();
+            }
             let input = PreviewInput {
                 base: Arc::new(base),
                 head: Arc::new(head),

@@ -8,8 +8,8 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::corpus::{Corpus, DocOptions, Document, FieldSpec, QueryEntry, QueryLog};
 use lexdelta::index::{IndexPostings, NoProgress, build_key_index, build_surface_index};
 use lexdelta::preview::{
-    self, ConflatedKeys, DirectKeys, DocOrder, Hit, KeySource, MatchMode, PreviewInput,
-    PreviewOptions, Ranking, Scoring, Stats, SurfaceForms, retrieve,
+    self, ConflatedKeys, DirectKeys, DocOrder, FormKeys, Hit, KeySource, MatchMode, PreviewInput,
+    PreviewOptions, Ranking, Scoring, Stats, lengths_without_stopwords, retrieve, stems,
 };
 use lexdelta::rules::{SourceFile, load_sources};
 use proptest::prelude::*;
@@ -56,8 +56,11 @@ fn slow(
 fn fast(analyzer: &Analyzer, corpus: &Corpus, queries: &[String], s: &Scoring) -> Vec<Vec<Hit>> {
     let index = build_surface_index(corpus, analyzer.surface(), None, &NoProgress).unwrap();
     let postings = IndexPostings::open_surface(&index, corpus.fields.len()).unwrap();
-    let forms = SurfaceForms::read(&postings).unwrap();
-    let keys = ConflatedKeys::new(&postings, &forms, analyzer).unwrap();
+    let forms = postings.surface_forms().unwrap();
+    let stems = stems(&postings, &forms, analyzer).unwrap();
+    let form_keys = FormKeys::compute(analyzer, &forms, stems.as_deref());
+    let lengths = lengths_without_stopwords(&postings, &forms, &form_keys).unwrap();
+    let keys = ConflatedKeys::new(&postings, &forms, &form_keys, lengths);
     run_all(&keys, analyzer, corpus, queries, s)
 }
 

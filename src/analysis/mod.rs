@@ -317,6 +317,54 @@ impl Analyzer {
         !self.is_stopword(form) && self.is_exempt(form).is_none() && self.lemma_of(form).is_none()
     }
 
+    /// The stemmer alone applied to `form` (the form itself without a stemmer): the key of
+    /// a form no rule names.
+    pub fn stem_alone<'a>(&self, form: &'a str) -> Cow<'a, str> {
+        match &self.stem {
+            Some(stem) => stem.stem(form),
+            None => Cow::Borrowed(form),
+        }
+    }
+
+    /// Names this analyzer's stemmer and its behaviour, for keeping stems on disk: the
+    /// language, this build's version, and a hash of the stems of a fixed list of words,
+    /// so stems kept by a build whose stemmer behaves otherwise are never reused.
+    pub fn stemmer_id(&self) -> String {
+        const PROBE: &[&str] = &[
+            "running",
+            "generously",
+            "relational",
+            "conditional",
+            "hopefulness",
+            "universities",
+            "caresses",
+            "ponies",
+            "agreed",
+            "feudalism",
+            "sensitivity",
+            "electrical",
+            "adjustment",
+            "controlling",
+            "rolling",
+            "möglichkeiten",
+            "continuité",
+            "bibliotecas",
+            "ёлка",
+            "kirjastossa",
+        ];
+        let mut hasher = blake3::Hasher::new();
+        for word in PROBE {
+            hasher.update(self.stem_alone(word).as_bytes());
+            hasher.update(b"\n");
+        }
+        format!(
+            "{}-{}-{}",
+            self.stemmer_name(),
+            env!("CARGO_PKG_VERSION"),
+            &hasher.finalize().to_hex()[..12]
+        )
+    }
+
     /// Whether both analyzers stem with the same algorithm (or neither stems).
     pub fn same_stemmer(&self, other: &Analyzer) -> bool {
         self.ruleset.pipeline.stemmer == other.ruleset.pipeline.stemmer

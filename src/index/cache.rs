@@ -95,6 +95,10 @@ pub fn open_or_build(
         .collect();
     fs::write(tmp.path().join(LENGTHS), bytes).map_err(io(tmp.path()))?;
     postings.set_lengths(lengths);
+    // The surface forms are kept beside the index from the start.
+    postings.set_dir(tmp.path());
+    postings.surface_forms()?;
+    drop(postings);
     drop(index);
     fs::write(tmp.path().join(MARKER), format!("{FORMAT_VERSION}\n")).map_err(io(tmp.path()))?;
     match fs::rename(tmp.path(), &target) {
@@ -114,6 +118,7 @@ pub fn open_or_build(
 fn open_cached(dir: &Path, num_fields: usize) -> Result<IndexPostings, IndexError> {
     let index = Index::open_in_dir(dir)?;
     let mut postings = IndexPostings::open(&index, num_fields)?;
+    postings.set_dir(dir);
     let bytes = fs::read(dir.join(LENGTHS)).map_err(io(dir))?;
     let docs = postings.num_docs() as usize;
     if bytes.len() != docs * num_fields * 4 {

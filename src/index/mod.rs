@@ -11,16 +11,23 @@
 //! [`Corpus::documents`]) and a fast field `len{i}` per text field (the number of tokens
 //! the field holds in that index).
 //!
+//! Beside a cached index lie values derived from it, computed on first use and checked
+//! when read back: the surface forms, stems, stopword-free lengths and id order (see
+//! `sidecar.rs` for how they are written and trusted).
+//!
 //! [`KeyTokenizer::keys`]: crate::analysis::tantivy::KeyTokenizer::keys
 //! [`Corpus::fields`]: crate::corpus::Corpus::fields
 //! [`Corpus::documents`]: crate::corpus::Corpus::documents
 
 mod build;
 mod cache;
+mod forms;
 mod reader;
+mod sidecar;
 
 pub use build::{build_key_index, build_surface_index};
 pub use cache::{CacheStatus, FORMAT_VERSION, open_or_build};
+pub use forms::SurfaceForms;
 pub use reader::{Frequencies, IndexPostings, Postings, ReadCache};
 
 /// Why an index could not be built, opened or read.

@@ -1,7 +1,9 @@
 //! Reading an index back: its term dictionary, postings with positions, document lengths.
 
-use std::sync::{Arc, Mutex};
+use std::path::{Path, PathBuf};
+use std::sync::{Arc, Mutex, OnceLock};
 
+use rayon::prelude::*;
 use rustc_hash::FxHashMap;
 use tantivy::postings::Postings as _;
 use tantivy::schema::IndexRecordOption;
@@ -9,6 +11,8 @@ use tantivy::{DocSet, Index, Searcher, TERMINATED, Term};
 
 use super::IndexError;
 use super::build::{IndexFields, schema};
+use super::forms::SurfaceForms;
+use super::sidecar;
 
 /// One term's postings: documents (corpus order, ascending), term frequencies, and the
 /// positions of each document (`positions[starts[i]..starts[i + 1]]`, ascending).
@@ -191,6 +195,9 @@ pub struct IndexPostings {
     /// Postings with positions (sized by positions), and frequencies (sized by postings).
     cache: ReadCache<Postings>,
     freq_cache: ReadCache<Frequencies>,
+    /// The cache directory holding the index, where derived values are kept beside it.
+    dir: Option<PathBuf>,
+    forms: OnceLock<Arc<SurfaceForms>>,
 }
 
 /// Positions, and separately postings, kept in the read caches before they are emptied:
@@ -267,7 +274,67 @@ impl IndexPostings {
             lengths,
             cache: ReadCache::new(num_fields, CACHE_BUDGET),
             freq_cache: ReadCache::new(num_fields, CACHE_BUDGET),
+            dir: None,
+            forms: OnceLock::new(),
         })
+    }
+
+    /// Keeps values derived from this index in `dir`, the cached index's directory.
+    pub(crate) fn set_dir(&mut self, dir: &Path) {
+        self.dir = Some(dir.to_path_buf());
+    }
+
+    /// The distinct surface forms of every field, read from the term dictionaries once
+    /// (and kept beside a cached index).
+    pub fn surface_forms(&self) -> Result<Arc<SurfaceForms>, IndexError> {
+        if let Some(forms) = self.forms.get() {
+            return Ok(Arc::clone(forms));
+        }
+        let forms = sidecar::load_or_compute(
+            self.dir.as_deref(),
+            "lexdelta-forms.bin",
+            SurfaceForms::decode,
+            SurfaceForms::encode,
+            || {
+                let fields = (0..self.num_fields())
+                    .into_par_iter()
+                    .map(|f| self.terms(f))
+                    .collect::<Result<Vec<_>, _>>()?;
+                Ok::<_, IndexError>(SurfaceForms::from_fields(&fields))
+            },
+        )?;
+        Ok(Arc::clone(self.forms.get_or_init(|| Arc::new(forms))))
+    }
+
+    /// A list of numbers derived from this index, kept beside it under `name` (which must
+    /// say everything the value depends on beyond the index).
+    pub fn derived_numbers(
+        &self,
+        name: &str,
+        compute: impl FnOnce() -> Result<Vec<u32>, IndexError>,
+    ) -> Result<Vec<u32>, IndexError> {
+        sidecar::load_or_compute(
+            self.dir.as_deref(),
+            &format!("lexdelta-{name}.bin"),
+            |d| d.u32s(),
+            |v, e| e.u32s(v),
+            compute,
+        )
+    }
+
+    /// A list of strings derived from this index, kept beside it under `name`.
+    pub fn derived_strings(
+        &self,
+        name: &str,
+        compute: impl FnOnce() -> Result<Vec<String>, IndexError>,
+    ) -> Result<Vec<String>, IndexError> {
+        sidecar::load_or_compute(
+            self.dir.as_deref(),
+            &format!("lexdelta-{name}.bin"),
+            |d| d.strings(),
+            |v, e| e.strings(v),
+            compute,
+        )
     }
 
     /// Opens a surface index, counting document lengths from its postings.
@@ -286,25 +353,29 @@ impl IndexPostings {
     /// Counts every document's tokens per field from the postings (term frequencies
     /// summed): the exact lengths of a surface index, which does not store them.
     pub fn surface_lengths(&self) -> Result<Vec<Vec<u32>>, IndexError> {
-        let mut out = vec![vec![0u32; self.num_docs as usize]; self.num_fields()];
-        for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
-            for (f, lengths) in out.iter_mut().enumerate() {
-                let inverted = segment.inverted_index(self.fields.texts[f])?;
-                let mut stream = inverted.terms().stream()?;
-                while stream.advance() {
-                    let mut postings = inverted.read_postings_from_terminfo(
-                        stream.value(),
-                        IndexRecordOption::WithFreqs,
-                    )?;
-                    let mut doc = postings.doc();
-                    while doc != TERMINATED {
-                        lengths[self.ords[s][doc as usize] as usize] += postings.term_freq();
-                        doc = postings.advance();
+        // Fields are counted in parallel, each into its own lengths.
+        (0..self.num_fields())
+            .into_par_iter()
+            .map(|f| {
+                let mut lengths = vec![0u32; self.num_docs as usize];
+                for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
+                    let inverted = segment.inverted_index(self.fields.texts[f])?;
+                    let mut stream = inverted.terms().stream()?;
+                    while stream.advance() {
+                        let mut postings = inverted.read_postings_from_terminfo(
+                            stream.value(),
+                            IndexRecordOption::WithFreqs,
+                        )?;
+                        let mut doc = postings.doc();
+                        while doc != TERMINATED {
+                            lengths[self.ords[s][doc as usize] as usize] += postings.term_freq();
+                            doc = postings.advance();
+                        }
                     }
                 }
-            }
-        }
-        Ok(out)
+                Ok(lengths)
+            })
+            .collect()
     }
 
     /// The documents and term frequencies of `term` in `field`, without positions
@@ -334,7 +405,8 @@ impl IndexPostings {
             }
         }
         if self.ords.len() > 1 {
-            pairs.sort_unstable_by_key(|p| p.0);
+            // Each segment's run is ascending: a stable sort merges the runs.
+            pairs.sort_by_key(|p| p.0);
         }
         Ok(Frequencies {
             docs: pairs.iter().map(|p| p.0).collect(),
@@ -368,7 +440,8 @@ impl IndexPostings {
             }
         }
         if self.ords.len() > 1 {
-            out.sort_unstable();
+            // Each segment's terms are a sorted run: a stable sort merges the runs.
+            out.sort();
             out.dedup();
         }
         Ok(out)
@@ -417,7 +490,8 @@ impl Postings {
     /// The same postings with documents in ascending order (a multi-segment read).
     fn sorted_by_doc(&self) -> Postings {
         let mut order: Vec<usize> = (0..self.len()).collect();
-        order.sort_unstable_by_key(|&i| self.docs[i]);
+        // Each segment's run is ascending: a stable sort merges the runs.
+        order.sort_by_key(|&i| self.docs[i]);
         let mut out = Postings::default();
         for i in order {
             out.docs.push(self.docs[i]);

@@ -3,8 +3,9 @@
 
 use rustc_hash::{FxHashMap, FxHashSet};
 
-use super::keys::{FormKeys, SurfaceForms};
+use super::keys::FormKeys;
 use crate::analysis::{AnalyzedQuery, Analyzer};
+use crate::index::SurfaceForms;
 
 /// What a change touches.
 #[derive(Debug, Default)]
@@ -55,22 +56,19 @@ impl ChangeSet {
                     .into(),
             );
         }
-        let mut seen = FxHashSet::default();
-        for (f, list) in forms.fields.iter().enumerate() {
-            for (i, form) in list.iter().enumerate() {
-                let (b, h) = (base_keys.key(f, i), head_keys.key(f, i));
-                if b == h || !seen.insert(form.as_str()) {
-                    continue;
-                }
-                change.changed_forms += 1;
-                for key in [b, h].into_iter().flatten() {
-                    change.affected_keys.insert(key.to_string());
-                    change
-                        .moved_forms
-                        .entry(key.to_string())
-                        .or_default()
-                        .push(form.clone());
-                }
+        for i in 0..forms.len() as u32 {
+            let (b, h) = (base_keys.key(i), head_keys.key(i));
+            if b == h {
+                continue;
+            }
+            change.changed_forms += 1;
+            for key in [b, h].into_iter().flatten() {
+                change.affected_keys.insert(key.to_string());
+                change
+                    .moved_forms
+                    .entry(key.to_string())
+                    .or_default()
+                    .push(forms.form(i).to_string());
             }
         }
         change

@@ -9,10 +9,10 @@ use std::borrow::Cow;
 use std::sync::Arc;
 
 use rayon::prelude::*;
-use rustc_hash::FxHashMap;
+use rustc_hash::FxHashSet;
 
 use crate::analysis::Analyzer;
-use crate::index::{Frequencies, IndexError, IndexPostings, Postings, ReadCache};
+use crate::index::{Frequencies, IndexError, IndexPostings, Postings, ReadCache, SurfaceForms};
 
 /// Where retrieval gets its postings and statistics.
 pub trait KeySource {
@@ -28,46 +28,77 @@ pub trait KeySource {
     fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
         Ok(Arc::new(Frequencies::from(&*self.postings(field, key)?)))
     }
+    /// The documents and tfs of any of `keys` (distinct) in `field`: their tfs summed, as
+    /// distinct keys never share a position. What a clause of one-word alternatives reads.
+    /// The default sums [`KeySource::frequencies`]; a source may keep the sum.
+    fn frequencies_of_any(
+        &self,
+        field: usize,
+        keys: &[&str],
+    ) -> Result<Arc<Frequencies>, IndexError> {
+        match keys {
+            [only] => self.frequencies(field, only),
+            _ => {
+                let parts = keys
+                    .iter()
+                    .map(|k| self.frequencies(field, k))
+                    .collect::<Result<Vec<_>, _>>()?;
+                Ok(Arc::new(Frequencies::sum(&parts)))
+            }
+        }
+    }
+
     /// Every key present in `field`, sorted.
     fn keys(&self, field: usize) -> Vec<String>;
 }
 
-/// The surface forms of each field of a surface index, read once and shared by both sides.
-pub struct SurfaceForms {
-    pub fields: Vec<Vec<String>>,
-}
-
-impl SurfaceForms {
-    /// Reads every field's term dictionary (the fields in parallel).
-    pub fn read(index: &IndexPostings) -> Result<Self, IndexError> {
-        Ok(SurfaceForms {
-            fields: (0..index.num_fields())
-                .into_par_iter()
-                .map(|f| index.terms(f))
-                .collect::<Result<_, _>>()?,
-        })
-    }
-}
-
-/// Every surface form's key under one ruleset (`None`: a stopword). Computed once per side
-/// and shared by the change set and that side's conflation groups; a form found in
-/// several fields is keyed once.
+/// Every distinct surface form's key under one ruleset (`None`: a stopword), and the
+/// forms grouped by key. Computed once per side and shared by the change set and that
+/// side's conflation groups; a form found in several fields is keyed once.
 #[derive(Debug, PartialEq, Eq)]
 pub struct FormKeys {
-    /// Per distinct form (sorted over all fields), its key.
+    /// Per distinct form (see [`SurfaceForms::forms`]), its key.
     keys: Vec<Option<String>>,
-    /// Per field, per form: its place among the distinct forms.
-    places: Vec<Vec<u32>>,
+    /// The forms that have a key, ordered by key (then by form): a key's members are one
+    /// run of this list.
+    by_key: Vec<u32>,
+}
+
+/// The stems of every distinct form of `forms` under `analyzer`'s stemmer alone, kept
+/// beside a cached index (`None` without a stemmer: a form is its own stem).
+pub fn stems(
+    index: &IndexPostings,
+    forms: &SurfaceForms,
+    analyzer: &Analyzer,
+) -> Result<Option<Vec<String>>, IndexError> {
+    if analyzer.stemmer_name() == "none" {
+        return Ok(None);
+    }
+    let name = format!("stems-{}", analyzer.stemmer_id());
+    let stems = index.derived_strings(&name, || {
+        Ok(forms
+            .forms
+            .par_iter()
+            .map(|f| analyzer.stem_alone(f).into_owned())
+            .collect())
+    })?;
+    Ok((stems.len() == forms.len()).then_some(stems))
 }
 
 impl FormKeys {
-    pub fn compute(analyzer: &Analyzer, forms: &SurfaceForms) -> FormKeys {
-        let (distinct, places) = distinct_forms(forms);
-        let keys = distinct
+    /// Every form's key; `stems` (from [`stems`]) saves stemming the forms no rule names.
+    pub fn compute(
+        analyzer: &Analyzer,
+        forms: &SurfaceForms,
+        stems: Option<&[String]>,
+    ) -> FormKeys {
+        let keys = forms
+            .forms
             .par_iter()
-            .map(|f| analyzer.key(f).map(Cow::into_owned))
+            .enumerate()
+            .map(|(i, f)| key_of(analyzer, f, stems.map(|s| s[i].as_str())))
             .collect();
-        FormKeys { keys, places }
+        FormKeys::grouped(keys)
     }
 
     /// Both sides' keys. With the same stemmer, a form no rule of either side names is
@@ -76,76 +107,143 @@ impl FormKeys {
         base: &Analyzer,
         head: &Analyzer,
         forms: &SurfaceForms,
+        stems: Option<&[String]>,
     ) -> (FormKeys, FormKeys) {
         if !base.same_stemmer(head) {
             return (
-                FormKeys::compute(base, forms),
-                FormKeys::compute(head, forms),
+                FormKeys::compute(base, forms, stems),
+                FormKeys::compute(head, forms, None),
             );
         }
-        let (distinct, places) = distinct_forms(forms);
-        let (base_keys, head_keys): (Vec<_>, Vec<_>) = distinct
+        let (base_keys, head_keys): (Vec<_>, Vec<_>) = forms
+            .forms
             .par_iter()
-            .map(|f| {
-                let b = base.key(f).map(Cow::into_owned);
+            .enumerate()
+            .map(|(i, f)| {
+                let stem = stems.map(|s| s[i].as_str());
+                let b = key_of(base, f, stem);
                 let h = if base.stems_plainly(f) && head.stems_plainly(f) {
                     b.clone()
                 } else {
-                    head.key(f).map(Cow::into_owned)
+                    key_of(head, f, stem)
                 };
                 (b, h)
             })
             .unzip();
-        (
-            FormKeys {
-                keys: base_keys,
-                places: places.clone(),
-            },
-            FormKeys {
-                keys: head_keys,
-                places,
-            },
+        rayon::join(
+            || FormKeys::grouped(base_keys),
+            || FormKeys::grouped(head_keys),
         )
     }
 
-    /// The key of the `i`-th form of `field`.
-    pub fn key(&self, field: usize, i: usize) -> Option<&str> {
-        self.keys[self.places[field][i] as usize].as_deref()
+    fn grouped(keys: Vec<Option<String>>) -> FormKeys {
+        let mut by_key: Vec<u32> = (0..keys.len() as u32)
+            .filter(|&i| keys[i as usize].is_some())
+            .collect();
+        by_key
+            .par_sort_unstable_by(|&a, &b| keys[a as usize].cmp(&keys[b as usize]).then(a.cmp(&b)));
+        FormKeys { keys, by_key }
+    }
+
+    /// The key of the `i`-th distinct form.
+    pub fn key(&self, i: u32) -> Option<&str> {
+        self.keys[i as usize].as_deref()
+    }
+
+    /// The distinct forms whose key is `key`, ascending.
+    pub fn members(&self, key: &str) -> &[u32] {
+        let key_at = |j: &u32| self.keys[*j as usize].as_deref().unwrap_or_default();
+        let from = self.by_key.partition_point(|j| key_at(j) < key);
+        let to = from + self.by_key[from..].partition_point(|j| key_at(j) == key);
+        &self.by_key[from..to]
+    }
+
+    /// Every key, sorted, once.
+    fn all_keys(&self) -> impl Iterator<Item = (&str, &[u32])> {
+        self.by_key
+            .chunk_by(|&a, &b| self.keys[a as usize] == self.keys[b as usize])
+            .map(|run| (self.key(run[0]).unwrap_or_default(), run))
     }
 }
 
-/// The distinct forms of all fields (sorted), and each field form's place among them.
-fn distinct_forms(forms: &SurfaceForms) -> (Vec<&str>, Vec<Vec<u32>>) {
-    let mut distinct: Vec<&str> = forms.fields.iter().flatten().map(String::as_str).collect();
-    distinct.par_sort_unstable();
-    distinct.dedup();
-    let places = forms
-        .fields
-        .iter()
-        .map(|list| {
-            // Both lists are sorted: one forward walk finds every place.
-            let mut at = 0;
-            list.iter()
-                .map(|form| {
-                    at += distinct[at..].partition_point(|d| *d < form.as_str());
-                    at as u32
-                })
-                .collect()
-        })
+/// A form's key; a form no rule names takes its stem from `stem` when given.
+fn key_of(analyzer: &Analyzer, form: &str, stem: Option<&str>) -> Option<String> {
+    match stem {
+        Some(stem) if analyzer.stems_plainly(form) => Some(stem.to_string()),
+        _ => analyzer.key(form).map(Cow::into_owned),
+    }
+}
+
+/// Every document's length per field under a stopword list: its surface token count minus
+/// its stopwords. Kept beside a cached index, named by the list.
+pub fn lengths_without_stopwords(
+    index: &IndexPostings,
+    forms: &SurfaceForms,
+    keys: &FormKeys,
+) -> Result<Arc<Vec<Vec<u32>>>, IndexError> {
+    let stopwords: Vec<u32> = (0..forms.len() as u32)
+        .filter(|&i| keys.key(i).is_none())
         .collect();
-    (distinct, places)
+    if stopwords.is_empty() {
+        return Ok(Arc::new(
+            (0..forms.fields.len())
+                .map(|f| index.lengths(f).to_vec())
+                .collect(),
+        ));
+    }
+    let mut hasher = blake3::Hasher::new();
+    for &i in &stopwords {
+        hasher.update(forms.form(i).as_bytes());
+        hasher.update(b"\n");
+    }
+    let name = format!("lengths-{}", &hasher.finalize().to_hex()[..16]);
+    let n = index.num_docs() as usize;
+    let flat = index.derived_numbers(&name, || {
+        let fields = (0..forms.fields.len())
+            .into_par_iter()
+            .map(|field| {
+                let mut len = index.lengths(field).to_vec();
+                for &i in stopwords.iter().filter(|&&i| forms.in_field(field, i)) {
+                    let stopword = index.frequencies(field, forms.form(i))?;
+                    for (&doc, &tf) in stopword.docs.iter().zip(&stopword.tfs) {
+                        let slot = &mut len[doc as usize];
+                        *slot = slot.saturating_sub(tf);
+                    }
+                }
+                Ok(len)
+            })
+            .collect::<Result<Vec<Vec<u32>>, IndexError>>()?;
+        Ok(fields.concat())
+    })?;
+    if flat.len() != n * forms.fields.len() {
+        return Err(IndexError::Io {
+            path: name,
+            source: std::io::Error::other("stored document lengths do not match the index"),
+        });
+    }
+    Ok(Arc::new(
+        flat.chunks(n.max(1))
+            .take(forms.fields.len())
+            .map(<[u32]>::to_vec)
+            .collect(),
+    ))
 }
 
 /// One ruleset's conflation groups over a surface index.
 pub struct ConflatedKeys<'a> {
     index: &'a IndexPostings,
     forms: &'a SurfaceForms,
-    /// Per field: key → indices of its member forms.
-    members: Vec<FxHashMap<String, Vec<u32>>>,
-    lengths: Vec<Vec<u32>>,
+    keys: &'a FormKeys,
+    lengths: Arc<Vec<Vec<u32>>>,
     /// Per field: key → its members' union, with and without positions.
     cache: ReadCache<Postings>,
     freq_cache: ReadCache<Frequencies>,
+    /// Per field: a clause's keys (joined) → the sum of all their members, so that a
+    /// synonym set shared by many queries is merged once.
+    clause_cache: ReadCache<Frequencies>,
+    /// The other side's groups over the same index, and the keys whose members differ
+    /// from it: every other key is read from there, so both sides merge it once.
+    other: Option<(&'a ConflatedKeys<'a>, &'a FxHashSet<String>)>,
 }
 
 /// Positions, and separately postings, of unions kept before a cache is emptied: about
@@ -153,53 +251,44 @@ pub struct ConflatedKeys<'a> {
 const UNION_BUDGET: usize = 8 << 20;
 
 impl<'a> ConflatedKeys<'a> {
+    /// The groups of forms already keyed, with the documents' lengths under that
+    /// ruleset's stopwords ([`lengths_without_stopwords`]).
     pub fn new(
         index: &'a IndexPostings,
         forms: &'a SurfaceForms,
-        analyzer: &Analyzer,
-    ) -> Result<Self, IndexError> {
-        ConflatedKeys::with_keys(index, forms, &FormKeys::compute(analyzer, forms))
-    }
-
-    /// The groups of forms already keyed.
-    pub fn with_keys(
-        index: &'a IndexPostings,
-        forms: &'a SurfaceForms,
-        keys: &FormKeys,
-    ) -> Result<Self, IndexError> {
-        let mut members = Vec::with_capacity(forms.fields.len());
-        let mut lengths = Vec::with_capacity(forms.fields.len());
-        for (field, list) in forms.fields.iter().enumerate() {
-            let mut groups: FxHashMap<String, Vec<u32>> = FxHashMap::default();
-            let mut len = index.lengths(field).to_vec();
-            for (i, form) in list.iter().enumerate() {
-                match keys.key(field, i) {
-                    Some(key) => match groups.get_mut(key) {
-                        Some(group) => group.push(i as u32),
-                        None => {
-                            groups.insert(key.to_string(), vec![i as u32]);
-                        }
-                    },
-                    None => {
-                        let stopword = index.frequencies(field, form)?;
-                        for (&doc, &tf) in stopword.docs.iter().zip(&stopword.tfs) {
-                            let slot = &mut len[doc as usize];
-                            *slot = slot.saturating_sub(tf);
-                        }
-                    }
-                }
-            }
-            members.push(groups);
-            lengths.push(len);
-        }
-        Ok(ConflatedKeys {
+        keys: &'a FormKeys,
+        lengths: Arc<Vec<Vec<u32>>>,
+    ) -> Self {
+        let n = forms.fields.len();
+        ConflatedKeys {
             index,
             forms,
-            members,
-            cache: ReadCache::new(lengths.len(), UNION_BUDGET),
-            freq_cache: ReadCache::new(lengths.len(), UNION_BUDGET),
+            keys,
             lengths,
-        })
+            cache: ReadCache::new(n, UNION_BUDGET),
+            freq_cache: ReadCache::new(n, UNION_BUDGET),
+            clause_cache: ReadCache::new(n, UNION_BUDGET),
+            other: None,
+        }
+    }
+
+    /// Reads every key not in `differing` from `other`, the other side's groups over the
+    /// same index: a key none of whose forms changed key has the same members there.
+    pub fn sharing(
+        mut self,
+        other: &'a ConflatedKeys<'a>,
+        differing: &'a FxHashSet<String>,
+    ) -> Self {
+        self.other = Some((other, differing));
+        self
+    }
+
+    /// The other side's groups, when they hold all of `keys` with the same members.
+    fn same_in_other(&self, keys: &[&str]) -> Option<&'a ConflatedKeys<'a>> {
+        let (other, differing) = self.other?;
+        keys.iter()
+            .all(|k| !differing.contains(*k))
+            .then_some(other)
     }
 
     /// The surface forms that make up `key` in `field`.
@@ -234,11 +323,11 @@ impl<'a> ConflatedKeys<'a> {
     }
 
     fn member_forms(&self, field: usize, key: &str) -> impl Iterator<Item = &str> {
-        self.members[field]
-            .get(key)
-            .into_iter()
-            .flatten()
-            .map(move |&i| self.forms.fields[field][i as usize].as_str())
+        self.keys
+            .members(key)
+            .iter()
+            .filter(move |&&i| self.forms.in_field(field, i))
+            .map(|&i| self.forms.form(i))
     }
 }
 
@@ -248,7 +337,7 @@ impl KeySource for ConflatedKeys<'_> {
     }
 
     fn num_fields(&self) -> usize {
-        self.members.len()
+        self.forms.fields.len()
     }
 
     fn doc_lengths(&self, field: usize) -> &[u32] {
@@ -256,6 +345,9 @@ impl KeySource for ConflatedKeys<'_> {
     }
 
     fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
+        if let Some(other) = self.same_in_other(&[key]) {
+            return other.postings(field, key);
+        }
         self.group(&self.cache, field, key, IndexPostings::postings, |parts| {
             let union = Postings::union(parts);
             let size = union.positions.len();
@@ -266,6 +358,9 @@ impl KeySource for ConflatedKeys<'_> {
     /// A group's tfs are its members' summed: each position holds one surface form, so
     /// members never share a position.
     fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
+        if let Some(other) = self.same_in_other(&[key]) {
+            return other.frequencies(field, key);
+        }
         self.group(
             &self.freq_cache,
             field,
@@ -279,10 +374,38 @@ impl KeySource for ConflatedKeys<'_> {
         )
     }
 
+    /// Every member of every key summed in one go, and kept.
+    fn frequencies_of_any(
+        &self,
+        field: usize,
+        keys: &[&str],
+    ) -> Result<Arc<Frequencies>, IndexError> {
+        if let [only] = keys {
+            return self.frequencies(field, only);
+        }
+        if let Some(other) = self.same_in_other(keys) {
+            return other.frequencies_of_any(field, keys);
+        }
+        let name = keys.join("\u{1}");
+        if let Some(hit) = self.clause_cache.get(field, &name) {
+            return Ok(hit);
+        }
+        let parts = keys
+            .iter()
+            .flat_map(|key| self.member_forms(field, key))
+            .map(|form| self.index.frequencies(field, form))
+            .collect::<Result<Vec<_>, _>>()?;
+        let sum = Arc::new(Frequencies::sum(&parts));
+        self.clause_cache.put(field, &name, &sum, sum.len());
+        Ok(sum)
+    }
+
     fn keys(&self, field: usize) -> Vec<String> {
-        let mut keys: Vec<String> = self.members[field].keys().cloned().collect();
-        keys.sort_unstable();
-        keys
+        self.keys
+            .all_keys()
+            .filter(|(_, members)| members.iter().any(|&i| self.forms.in_field(field, i)))
+            .map(|(key, _)| key.to_string())
+            .collect()
     }
 }
 
@@ -329,33 +452,30 @@ mod tests {
     use crate::analysis::tests::analyzer;
 
     fn forms(fields: &[&[&str]]) -> SurfaceForms {
-        SurfaceForms {
-            fields: fields
-                .iter()
-                .map(|f| {
-                    let mut v: Vec<String> = f.iter().map(|s| s.to_string()).collect();
-                    v.sort();
-                    v
-                })
-                .collect(),
-        }
+        let fields: Vec<Vec<String>> = fields
+            .iter()
+            .map(|f| {
+                let mut v: Vec<String> = f.iter().map(|s| s.to_string()).collect();
+                v.sort();
+                v
+            })
+            .collect();
+        SurfaceForms::from_fields(&fields)
     }
 
-    fn all_keys(keys: &FormKeys, forms: &SurfaceForms) -> Vec<Vec<Option<String>>> {
-        forms
-            .fields
-            .iter()
-            .enumerate()
-            .map(|(f, list)| {
-                (0..list.len())
-                    .map(|i| keys.key(f, i).map(str::to_string))
-                    .collect()
-            })
+    fn all_keys(keys: &FormKeys, forms: &SurfaceForms) -> Vec<Option<String>> {
+        (0..forms.len() as u32)
+            .map(|i| keys.key(i).map(str::to_string))
             .collect()
     }
 
-    /// Sharing the stemming between the sides changes no key: each side's keys are what
-    /// that side alone computes, stopwords, exemptions and lemma overrides included.
+    fn place(forms: &SurfaceForms, form: &str) -> u32 {
+        forms.forms.iter().position(|f| f == form).unwrap() as u32
+    }
+
+    /// Sharing the stemming between the sides, or taking the stems from a list, changes
+    /// no key: each side's keys are what that side alone computes, stopwords, exemptions
+    /// and lemma overrides included.
     #[test]
     fn paired_keys_equal_each_side_alone() {
         let base = analyzer("pipeline:\n  stemmer: english\n  stopwords: [the]\n");
@@ -367,25 +487,36 @@ mod tests {
             &["the", "running", "runs", "universal", "university", "mice"],
             &["runs", "mouse", "universe", "the", "ran"],
         ]);
-        let (b, h) = FormKeys::compute_pair(&base, &head, &forms);
-        assert_eq!(
-            all_keys(&b, &forms),
-            all_keys(&FormKeys::compute(&base, &forms), &forms)
-        );
-        assert_eq!(
-            all_keys(&h, &forms),
-            all_keys(&FormKeys::compute(&head, &forms), &forms)
-        );
-        assert_eq!(
-            h.key(
-                0,
-                forms.fields[0]
-                    .iter()
-                    .position(|f| f == "universal")
-                    .unwrap()
-            ),
-            Some("universal")
-        );
-        assert_eq!(b.key(1, 0), Some("mous"));
+        let stems: Vec<String> = forms
+            .forms
+            .iter()
+            .map(|f| base.stem_alone(f).into_owned())
+            .collect();
+        let alone_b = FormKeys::compute(&base, &forms, None);
+        let alone_h = FormKeys::compute(&head, &forms, None);
+        for given in [None, Some(stems.as_slice())] {
+            let (b, h) = FormKeys::compute_pair(&base, &head, &forms, given);
+            assert_eq!(all_keys(&b, &forms), all_keys(&alone_b, &forms));
+            assert_eq!(all_keys(&h, &forms), all_keys(&alone_h, &forms));
+            assert_eq!(b, alone_b);
+            assert_eq!(h, FormKeys::compute(&head, &forms, given));
+        }
+        assert_eq!(alone_h.key(place(&forms, "universal")), Some("universal"));
+        assert_eq!(alone_b.key(place(&forms, "mouse")), Some("mous"));
+        assert_eq!(alone_h.key(place(&forms, "running")), None);
+    }
+
+    #[test]
+    fn a_keys_members_are_its_forms_in_order() {
+        let a = analyzer("pipeline:\n  stemmer: english\n  stopwords: [the]\n");
+        let forms = forms(&[&["runs", "the", "running", "run", "tram"], &["trams"]]);
+        let keys = FormKeys::compute(&a, &forms, None);
+        let names = |m: &[u32]| m.iter().map(|&i| forms.form(i)).collect::<Vec<_>>();
+        assert_eq!(names(keys.members("run")), ["run", "running", "runs"]);
+        assert_eq!(names(keys.members("tram")), ["tram", "trams"]);
+        assert!(keys.members("the").is_empty());
+        assert!(keys.members("zzz").is_empty());
+        let all: Vec<&str> = keys.all_keys().map(|(k, _)| k).collect();
+        assert_eq!(all, ["run", "tram"]);
     }
 }

@@ -55,7 +55,14 @@
 //! A clause without a phrase reads documents and tfs only (a group's tfs are its members'
 //! summed, as members never share a position); positions are read for phrases alone.
 //! Only the top k of each side is ranked; gained and lost documents come from merging the
-//! two document-ordered match lists. Queries are evaluated in parallel and folded into the
+//! two document-ordered match lists. A clause of several keys (a synonym set) is merged
+//! once per view and kept; over one index, the head reads every key whose members did not
+//! change from the base's view, so both sides merge it once.
+//!
+//! What depends only on the index is kept beside it on disk (see [`crate::index`]): its
+//! surface forms, their stems under each stemmer, the document lengths under each stopword
+//! list, and the documents' id order. A warm preview reads these instead of computing
+//! them, and spends its time on the queries the change touches. Queries are evaluated in parallel and folded into the
 //! report in log order, so the output does not depend on the number of threads.
 
 mod attribution;
@@ -71,9 +78,10 @@ use rayon::prelude::*;
 use rustc_hash::{FxHashMap, FxHashSet};
 use serde::Serialize;
 
+pub use crate::index::SurfaceForms;
 pub use attribution::{RuleIndex, Sides};
 pub use change::{ChangeSet, same_expansions, touched_keys};
-pub use keys::{ConflatedKeys, DirectKeys, FormKeys, KeySource, SurfaceForms};
+pub use keys::{ConflatedKeys, DirectKeys, FormKeys, KeySource, lengths_without_stopwords, stems};
 pub use report::*;
 pub use retrieve::{
     DocOrder, Hit, MatchMode, Ranking, Scoring, Stats, matches, rank, retrieve, top_hits,
@@ -204,10 +212,11 @@ impl<'a> View<'a> {
     fn new(
         postings: &'a IndexPostings,
         forms: &'a SurfaceForms,
-        form_keys: &FormKeys,
+        form_keys: &'a FormKeys,
         scoring: &Scoring,
     ) -> Result<View<'a>, IndexError> {
-        let keys = ConflatedKeys::with_keys(postings, forms, form_keys)?;
+        let lengths = keys::lengths_without_stopwords(postings, forms, form_keys)?;
+        let keys = ConflatedKeys::new(postings, forms, form_keys, lengths);
         let stats = Stats::compute(&keys, scoring)?;
         Ok(View { keys, stats })
     }
@@ -314,29 +323,32 @@ pub fn run_opened(
         base: opened_base,
         head: opened_head,
     } = indexes;
-    let forms_base = SurfaceForms::read(&opened_base.postings)?;
+    let forms_base = opened_base.postings.surface_forms()?;
     let forms_head = match &opened_head {
-        Some(o) => Some(SurfaceForms::read(&o.postings)?),
+        Some(o) => Some(o.postings.surface_forms()?),
         None => None,
     };
-    // Each side keys every surface form once (shared stemming where the rules allow); the
-    // change set and the conflation groups share those keys.
+    // Each side keys every surface form once (shared stemming where the rules allow, the
+    // stems themselves kept beside the index); the change set and the conflation groups
+    // share those keys.
     let (head_postings, head_forms) = match (&opened_head, &forms_head) {
         (Some(o), Some(f)) => (&o.postings, f),
         _ => (&opened_base.postings, &forms_base),
     };
+    let stems_base = keys::stems(&opened_base.postings, &forms_base, base_a)?;
     let (keys_base, keys_head) = if same_surface {
-        FormKeys::compute_pair(base_a, head_a, &forms_base)
+        FormKeys::compute_pair(base_a, head_a, &forms_base, stems_base.as_deref())
     } else {
+        let stems_head = keys::stems(head_postings, head_forms, head_a)?;
         rayon::join(
-            || FormKeys::compute(base_a, &forms_base),
-            || FormKeys::compute(head_a, head_forms),
+            || FormKeys::compute(base_a, &forms_base, stems_base.as_deref()),
+            || FormKeys::compute(head_a, head_forms, stems_head.as_deref()),
         )
     };
     let change = ChangeSet::from_keys(
         base_a,
         head_a,
-        same_surface.then_some((&forms_base, (&keys_base, &keys_head))),
+        same_surface.then_some((&*forms_base, (&keys_base, &keys_head))),
     );
     let base_view = View::new(
         &opened_base.postings,
@@ -349,12 +361,16 @@ pub fn run_opened(
     let head_view = if same_surface && keys_base == keys_head {
         None
     } else {
-        Some(View::new(
-            head_postings,
-            head_forms,
-            &keys_head,
-            &options.scoring,
-        )?)
+        let view = View::new(head_postings, head_forms, &keys_head, &options.scoring)?;
+        Some(if same_surface {
+            // Over one index, a key whose members did not change is merged once, by the base.
+            View {
+                keys: view.keys.sharing(&base_view.keys, &change.affected_keys),
+                stats: view.stats,
+            }
+        } else {
+            view
+        })
     };
     let base = Side {
         analyzer: base_a,
@@ -366,7 +382,15 @@ pub fn run_opened(
     };
 
     let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
-    let order = DocOrder::by_id(&ids);
+    // The id order depends on the corpus alone, which the index is keyed by.
+    let places = opened_base
+        .postings
+        .derived_numbers("id-order", || Ok(DocOrder::by_id(&ids).into_places()))?;
+    let order = if places.len() == ids.len() {
+        DocOrder::from_places(places)
+    } else {
+        DocOrder::by_id(&ids)
+    };
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
     // Hits in document order; only the top k is ever ranked.
     let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery| {

@@ -193,6 +193,16 @@ impl DocOrder {
         DocOrder(place)
     }
 
+    /// Each document's place, as [`DocOrder::by_id`] computed it (kept on disk).
+    pub fn into_places(self) -> Vec<u32> {
+        self.0
+    }
+
+    /// The order of places computed earlier by [`DocOrder::by_id`].
+    pub fn from_places(places: Vec<u32>) -> DocOrder {
+        DocOrder(places)
+    }
+
     /// The document's place in id order.
     pub fn place(&self, doc: u32) -> u32 {
         self.0[doc as usize]
@@ -445,47 +455,67 @@ fn retrieve_all(
     let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
     let mut by_size: Vec<usize> = (0..lists.len()).collect();
     by_size.sort_by_key(|&c| (size(&lists[c]), c));
-    let mut candidates = union_of_docs(&lists[by_size[0]]);
-    for &c in &by_size[1..] {
-        let mut matched = vec![false; candidates.len()];
-        for list in &lists[c] {
-            for_each_found(&candidates, list, |i, _| matched[i] = true);
-        }
-        let mut kept = 0;
-        for i in 0..candidates.len() {
-            if matched[i] {
-                candidates[kept] = candidates[i];
-                kept += 1;
+    ALL_SCRATCH.with_borrow_mut(|scratch| {
+        let AllScratch {
+            candidates,
+            matched,
+            contrib,
+        } = scratch;
+        union_of_docs(&lists[by_size[0]], candidates);
+        for &c in &by_size[1..] {
+            matched.clear();
+            matched.resize(candidates.len(), false);
+            for list in &lists[c] {
+                for_each_found(candidates, list, |i, _| matched[i] = true);
+            }
+            let mut kept = 0;
+            for i in 0..candidates.len() {
+                if matched[i] {
+                    candidates[kept] = candidates[i];
+                    kept += 1;
+                }
+            }
+            candidates.truncate(kept);
+            if kept == 0 {
+                return Ok(Vec::new());
             }
         }
-        candidates.truncate(kept);
-        if kept == 0 {
-            return Ok(Vec::new());
-        }
-    }
-    let clauses = lists.len();
-    let mut contrib = vec![0.0f64; candidates.len() * clauses];
-    for (c, fields) in lists.iter().enumerate() {
-        for (field, list) in fields.iter().enumerate() {
-            if list.is_empty() {
-                continue;
+        let clauses = lists.len();
+        contrib.clear();
+        contrib.resize(candidates.len() * clauses, 0.0);
+        for (c, fields) in lists.iter().enumerate() {
+            for (field, list) in fields.iter().enumerate() {
+                if list.is_empty() {
+                    continue;
+                }
+                let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
+                for_each_found(candidates, list, |i, j| {
+                    contrib[i * clauses + c] += scorer.score(candidates[i], list.tfs[j]);
+                });
             }
-            let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
-            for_each_found(&candidates, list, |i, j| {
-                contrib[i * clauses + c] += scorer.score(candidates[i], list.tfs[j]);
-            });
         }
-    }
-    Ok(candidates
-        .iter()
-        .enumerate()
-        .map(|(i, &doc)| Hit {
-            doc,
-            score: contrib[i * clauses..(i + 1) * clauses]
-                .iter()
-                .fold(0.0, |sum, s| sum + s),
-        })
-        .collect())
+        Ok(candidates
+            .iter()
+            .zip(contrib.chunks_exact(clauses))
+            .map(|(&doc, parts)| Hit {
+                doc,
+                score: parts.iter().fold(0.0, |sum, s| sum + s),
+            })
+            .collect())
+    })
+}
+
+/// Buffers of [`retrieve_all`] kept per thread: a query of frequent terms holds
+/// candidates by the hundred thousand, and fresh buffers cost more than the work.
+#[derive(Default)]
+struct AllScratch {
+    candidates: Vec<u32>,
+    matched: Vec<bool>,
+    contrib: Vec<f64>,
+}
+
+thread_local! {
+    static ALL_SCRATCH: std::cell::RefCell<AllScratch> = std::cell::RefCell::default();
 }
 
 /// Calls `found(i, j)` for every candidate `i` (ascending documents) that `list` holds, at
@@ -503,17 +533,17 @@ fn for_each_found(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(
     }
 }
 
-/// The documents of any of these lists (each ascending), ascending, without repeats.
-fn union_of_docs(lists: &[Arc<Frequencies>]) -> Vec<u32> {
-    let mut out: Vec<u32> = Vec::new();
+/// The documents of any of these lists (each ascending), ascending, without repeats,
+/// into `out`.
+fn union_of_docs(lists: &[Arc<Frequencies>], out: &mut Vec<u32>) {
+    out.clear();
     for list in lists.iter().filter(|l| !l.is_empty()) {
-        out = if out.is_empty() {
-            list.docs.clone()
+        if out.is_empty() {
+            out.extend_from_slice(&list.docs);
         } else {
-            merge_sorted(&out, &list.docs)
-        };
+            *out = merge_sorted(out, &list.docs);
+        }
     }
-    out
 }
 
 /// Two ascending lists merged, a value in both kept once.
@@ -575,16 +605,7 @@ fn clause_tf(
             .collect();
         keys.sort_unstable();
         keys.dedup();
-        return match keys.as_slice() {
-            [only] => source.frequencies(field, only),
-            _ => {
-                let parts = keys
-                    .iter()
-                    .map(|k| source.frequencies(field, k))
-                    .collect::<Result<Vec<_>, _>>()?;
-                Ok(Arc::new(Frequencies::sum(&parts)))
-            }
-        };
+        return source.frequencies_of_any(field, &keys);
     }
     let mut pairs = Vec::new();
     for alternative in &expansion.alternatives {
