@@ -11,7 +11,8 @@
 //! edit: mostly rare forms). `--mode`:
 //!
 //! - `plain`: one plain tantivy build of the corpus (surface tokenizer, positions), nothing else;
-//! - `naive`: index the corpus once per ruleset with the real analyzer and run every query on both;
+//! - `naive`: index the corpus once per ruleset with the real analyzer and run every query on both
+//!   (queries in parallel, as the preview runs its own);
 //! - `cold`: `preview` with an empty cache (builds the surface index);
 //! - `warm`: `preview` with the cache filled (run `cold` first with the same `--cache`);
 //!   as in the CLI, the documents are read without their texts.
@@ -36,6 +37,7 @@ use lexdelta::preview::{
 use lexdelta::rules::{SourceFile, load_sources};
 use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
+use rayon::prelude::*;
 use tantivy::schema::{IndexRecordOption, Schema, TextFieldIndexing, TextOptions};
 use tantivy::{Index, TantivyDocument};
 
@@ -190,9 +192,10 @@ fn main() {
                 let stats = Stats::compute(&keys, &scoring).unwrap();
                 // Each query's ranking is kept as a hash: a million documents' full hit
                 // lists for every query would not fit in memory.
+                // Queries run on both cores, as the preview's own queries do.
                 let side: Vec<blake3::Hash> = log
                     .queries
-                    .iter()
+                    .par_iter()
                     .map(|q| {
                         let hits = retrieve(
                             &a.analyze_query(&q.query),

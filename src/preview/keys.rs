@@ -247,8 +247,8 @@ pub struct ConflatedKeys<'a> {
 }
 
 /// Positions, and separately postings, of unions kept before a cache is emptied: about
-/// 32 MiB and 64 MiB per side.
-const UNION_BUDGET: usize = 8 << 20;
+/// 96 MiB and 192 MiB per side (sized with [`crate::index`]'s read caches).
+const UNION_BUDGET: usize = 24 << 20;
 
 impl<'a> ConflatedKeys<'a> {
     /// The groups of forms already keyed, with the documents' lengths under that

@@ -84,7 +84,8 @@ pub use change::{ChangeSet, same_expansions, touched_keys};
 pub use keys::{ConflatedKeys, DirectKeys, FormKeys, KeySource, lengths_without_stopwords, stems};
 pub use report::*;
 pub use retrieve::{
-    DocOrder, Hit, MatchMode, Ranking, Scoring, Stats, matches, rank, retrieve, top_hits,
+    DocOrder, Hit, MatchMode, Ranking, Scoring, SideQuery, Stats, matches, matches_both,
+    matches_into, rank, retrieve, top_hits,
 };
 
 use crate::analysis::Analyzer;
@@ -393,8 +394,15 @@ pub fn run_opened(
     };
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
     // Hits in document order; only the top k is ever ranked.
-    let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery| {
-        matches(q, &s.view.keys, &s.view.stats, &options.scoring, &weights)
+    let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery, hits: &mut Vec<Hit>| {
+        matches_into(
+            q,
+            &s.view.keys,
+            &s.view.stats,
+            &options.scoring,
+            &weights,
+            hits,
+        )
     };
 
     // Judged query texts → ids; judged texts missing from the log are run too.
@@ -442,7 +450,7 @@ pub fn run_opened(
     };
 
     // Queries are evaluated independently, in parallel, then folded in log order.
-    let evaluate = |i: usize| -> Result<QueryOutcome, PreviewError> {
+    let evaluate = |i: usize, hb: &mut Vec<Hit>, hh: &mut Vec<Hit>| {
         let (text, count) = &queries[i];
         let qid = qid_of.get(text);
         let qb = base.analyzer.analyze_query(text);
@@ -456,7 +464,8 @@ pub fn run_opened(
         let needs_ranking = qid.is_some() || options.want_runs;
         if !must {
             let top_b = if needs_ranking {
-                top(&run_side(&base, &qb)?)
+                run_side(&base, &qb, hb)?;
+                top(hb)
             } else {
                 Vec::new()
             };
@@ -468,10 +477,24 @@ pub fn run_opened(
                 change: None,
             });
         }
-        let hb = run_side(&base, &qb)?;
-        let hh = run_side(&head, &qh)?;
-        let (top_b, top_h) = (top(&hb), top(&hh));
-        let (gained, lost) = gained_and_lost(&hb, &hh);
+        matches_both(
+            &SideQuery {
+                query: &qb,
+                source: &base.view.keys,
+                stats: &base.view.stats,
+            },
+            &SideQuery {
+                query: &qh,
+                source: &head.view.keys,
+                stats: &head.view.stats,
+            },
+            &options.scoring,
+            &weights,
+            hb,
+            hh,
+        )?;
+        let (top_b, top_h) = (top(hb), top(hh));
+        let (gained, lost) = gained_and_lost(hb, hh);
         let mut change = diff(
             text,
             *count,
@@ -495,7 +518,7 @@ pub fn run_opened(
             change.lost = shown(lost);
             change.causes = sides.attribute(text, &qb, &qh);
         }
-        Ok(QueryOutcome {
+        Ok::<_, PreviewError>(QueryOutcome {
             evaluated: true,
             label,
             top_b,
@@ -505,7 +528,13 @@ pub fn run_opened(
     };
     let outcomes = (0..queries.len())
         .into_par_iter()
-        .map(evaluate)
+        .map(|i| {
+            // Each thread reuses its two hit buffers: taken out for the query, put back after.
+            let (mut hb, mut hh) = HIT_BUFFERS.take();
+            let outcome = evaluate(i, &mut hb, &mut hh);
+            HIT_BUFFERS.set((hb, hh));
+            outcome
+        })
         .collect::<Result<Vec<_>, _>>()?;
 
     let mut changes = Vec::new();
@@ -615,6 +644,11 @@ pub fn run_opened(
         report,
         runs: options.want_runs.then_some(runs),
     })
+}
+
+thread_local! {
+    /// Per thread, the base and head hits of the query being evaluated.
+    static HIT_BUFFERS: std::cell::Cell<(Vec<Hit>, Vec<Hit>)> = const { std::cell::Cell::new((Vec::new(), Vec::new())) };
 }
 
 /// The documents only `after` holds (gained) and only `before` holds (lost), both hit

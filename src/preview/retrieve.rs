@@ -258,9 +258,9 @@ impl Scratch {
         self.clause_docs.clear();
     }
 
-    /// The documents with at least `need` clauses, and clears the totals.
-    fn take_hits(&mut self, need: usize) -> Vec<Hit> {
-        let mut hits = Vec::new();
+    /// The documents with at least `need` clauses, into `hits`, and clears the totals.
+    fn take_hits(&mut self, need: usize, hits: &mut Vec<Hit>) {
+        hits.clear();
         for &doc in &self.docs {
             let d = doc as usize;
             if self.count[d] as usize >= need {
@@ -273,7 +273,6 @@ impl Scratch {
             self.score[d] = 0.0;
         }
         self.docs.clear();
-        hits
     }
 }
 
@@ -304,9 +303,25 @@ pub fn matches(
     scoring: &Scoring,
     weights: &[f64],
 ) -> Result<Vec<Hit>, IndexError> {
+    let mut hits = Vec::new();
+    matches_into(query, source, stats, scoring, weights, &mut hits)?;
+    Ok(hits)
+}
+
+/// [`matches`] into `hits` (cleared first): a buffer the caller reuses from query to query,
+/// as a million-document query's hits are megabytes of fresh pages otherwise.
+pub fn matches_into(
+    query: &AnalyzedQuery,
+    source: &dyn KeySource,
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+    hits: &mut Vec<Hit>,
+) -> Result<(), IndexError> {
+    hits.clear();
     let clauses = query.expansions.len();
     if clauses == 0 {
-        return Ok(Vec::new());
+        return Ok(());
     }
     let need = match scoring.mode {
         MatchMode::All => clauses,
@@ -314,17 +329,17 @@ pub fn matches(
         MatchMode::Min(k) => k.min(clauses),
     };
     if need == clauses {
-        return retrieve_all(query, source, stats, scoring, weights);
+        return retrieve_all(query, source, stats, scoring, weights, hits);
     }
-    let mut hits = SCRATCH.with_borrow_mut(|scratch| {
+    SCRATCH.with_borrow_mut(|scratch| {
         scratch.fit(stats.num_docs as usize);
         let scored = score_clauses(query, source, stats, scoring, weights, scratch);
         // Always clear the scratch, even after an error, so the next query starts clean.
-        let hits = scratch.take_hits(need);
-        scored.map(|()| hits)
+        scratch.take_hits(need, hits);
+        scored
     })?;
     hits.sort_unstable_by_key(|h| h.doc);
-    Ok(hits)
+    Ok(())
 }
 
 /// The best `k` of `hits`, best first, ties by document id: the order [`rank`] gives,
@@ -431,86 +446,312 @@ fn score_clauses(
     Ok(())
 }
 
+/// A query's clause lists: per clause, per field, its documents and tfs.
+type ClauseLists = Vec<Vec<Arc<Frequencies>>>;
+
+fn clause_lists(
+    query: &AnalyzedQuery,
+    source: &dyn KeySource,
+    fields: usize,
+) -> Result<ClauseLists, IndexError> {
+    query
+        .expansions
+        .iter()
+        .map(|e| {
+            (0..fields)
+                .map(|field| clause_tf(e, field, source))
+                .collect::<Result<Vec<_>, _>>()
+        })
+        .collect()
+}
+
+/// Whether `query` needs every clause under `scoring`.
+fn needs_every_clause(query: &AnalyzedQuery, scoring: &Scoring) -> bool {
+    let clauses = query.expansions.len();
+    match scoring.mode {
+        MatchMode::All => true,
+        MatchMode::Any => clauses <= 1,
+        MatchMode::Min(k) => k >= clauses,
+    }
+}
+
+/// One side of a comparison: the query as that side analyzes it, its postings and stats.
+pub struct SideQuery<'a> {
+    pub query: &'a AnalyzedQuery,
+    pub source: &'a dyn KeySource,
+    pub stats: &'a Stats,
+}
+
+/// Both sides' [`matches`] of one query, into `base_hits` and `head_hits`. When both need
+/// every clause, the two are found together: a clause both sides read from the very same
+/// list (the clauses a change leaves alone) filters the candidates of both in one pass, so
+/// a query whose change touches one clause pays for its other clauses once, not twice.
+/// Each side is then scored alone, so the hits are exactly what [`matches`] gives.
+pub fn matches_both(
+    base: &SideQuery,
+    head: &SideQuery,
+    scoring: &Scoring,
+    weights: &[f64],
+    base_hits: &mut Vec<Hit>,
+    head_hits: &mut Vec<Hit>,
+) -> Result<(), IndexError> {
+    let joint = !base.query.expansions.is_empty()
+        && !head.query.expansions.is_empty()
+        && needs_every_clause(base.query, scoring)
+        && needs_every_clause(head.query, scoring);
+    if !joint {
+        matches_into(
+            base.query,
+            base.source,
+            base.stats,
+            scoring,
+            weights,
+            base_hits,
+        )?;
+        return matches_into(
+            head.query,
+            head.source,
+            head.stats,
+            scoring,
+            weights,
+            head_hits,
+        );
+    }
+    let lists_b = clause_lists(base.query, base.source, weights.len())?;
+    let lists_h = clause_lists(head.query, head.source, weights.len())?;
+    ALL_SCRATCH.with_borrow_mut(|scratch| {
+        filter_by_every_clause(&lists_b, Some(&lists_h), scratch);
+        let AllScratch {
+            candidates,
+            sides,
+            docs,
+            contrib,
+            ..
+        } = scratch;
+        for (bit, lists, stats, hits) in [
+            (BASE, &lists_b, base.stats, base_hits),
+            (HEAD, &lists_h, head.stats, head_hits),
+        ] {
+            docs.clear();
+            docs.extend(
+                candidates
+                    .iter()
+                    .zip(sides.iter())
+                    .filter(|(_, s)| **s & bit != 0)
+                    .map(|(d, _)| *d),
+            );
+            score_documents(lists, docs, stats, scoring, weights, contrib, hits);
+        }
+        Ok(())
+    })
+}
+
 /// All clauses must match: the candidates are the documents of the rarest clause, and each
-/// further clause only looks its candidates up (galloping through its sorted postings), so
-/// a frequent term costs what the rare one allows. Only the documents left after every
-/// clause are scored. Scores are summed in query order, field by field, exactly as
-/// [`score_clauses`] does.
+/// further clause only looks its candidates up (galloping through its sorted postings, or
+/// through the candidates when the clause is the shorter list), so a frequent term costs
+/// what the rare one allows. Only the documents left after every clause are scored, summed
+/// in query order, field by field, exactly as [`score_clauses`] does.
 fn retrieve_all(
     query: &AnalyzedQuery,
     source: &dyn KeySource,
     stats: &Stats,
     scoring: &Scoring,
     weights: &[f64],
-) -> Result<Vec<Hit>, IndexError> {
-    let lists = query
-        .expansions
-        .iter()
-        .map(|e| {
-            (0..weights.len())
-                .map(|field| clause_tf(e, field, source))
-                .collect::<Result<Vec<_>, _>>()
-        })
-        .collect::<Result<Vec<_>, _>>()?;
-    let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
-    let mut by_size: Vec<usize> = (0..lists.len()).collect();
-    by_size.sort_by_key(|&c| (size(&lists[c]), c));
+    hits: &mut Vec<Hit>,
+) -> Result<(), IndexError> {
+    let lists = clause_lists(query, source, weights.len())?;
     ALL_SCRATCH.with_borrow_mut(|scratch| {
+        filter_by_every_clause(&lists, None, scratch);
         let AllScratch {
             candidates,
-            matched,
             contrib,
+            ..
         } = scratch;
-        union_of_docs(&lists[by_size[0]], candidates);
-        for &c in &by_size[1..] {
-            matched.clear();
-            matched.resize(candidates.len(), false);
-            for list in &lists[c] {
-                for_each_found(candidates, list, |i, _| matched[i] = true);
-            }
-            let mut kept = 0;
-            for i in 0..candidates.len() {
-                if matched[i] {
-                    candidates[kept] = candidates[i];
-                    kept += 1;
-                }
-            }
-            candidates.truncate(kept);
-            if kept == 0 {
-                return Ok(Vec::new());
+        score_documents(&lists, candidates, stats, scoring, weights, contrib, hits);
+        Ok(())
+    })
+}
+
+/// Which side a candidate is still a candidate of.
+const BASE: u8 = 1;
+const HEAD: u8 = 2;
+
+/// Leaves in `scratch.candidates` (ascending) the documents that hold every clause of the
+/// base, or of the head when given, with `scratch.sides` saying of which. A clause both
+/// sides read from the same lists is looked up once for both.
+fn filter_by_every_clause(
+    base: &ClauseLists,
+    head: Option<&ClauseLists>,
+    scratch: &mut AllScratch,
+) {
+    let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
+    let same = |a: &Vec<Arc<Frequencies>>, b: &Vec<Arc<Frequencies>>| {
+        a.iter().zip(b).all(|(x, y)| Arc::ptr_eq(x, y))
+    };
+    // Every distinct clause once, with the sides that hold it.
+    let mut clauses: Vec<(&Vec<Arc<Frequencies>>, u8)> = base.iter().map(|c| (c, BASE)).collect();
+    for c in head.into_iter().flatten() {
+        match clauses.iter_mut().find(|(b, s)| *s == BASE && same(b, c)) {
+            Some(shared) => shared.1 |= HEAD,
+            None => clauses.push((c, HEAD)),
+        }
+    }
+    let rarest = |bit: u8| {
+        (0..clauses.len())
+            .filter(|&i| clauses[i].1 & bit != 0)
+            .min_by_key(|&i| (size(clauses[i].0), i))
+    };
+    let start_b = rarest(BASE).expect("a query with clauses");
+    let start_h = head.map(|_| rarest(HEAD).expect("a query with clauses"));
+    let AllScratch {
+        candidates,
+        merged,
+        sides,
+        matched,
+        docs,
+        ..
+    } = scratch;
+    // The candidates: the base's rarest clause's documents, and the head's.
+    union_of_docs(clauses[start_b].0, candidates, merged);
+    sides.clear();
+    sides.resize(candidates.len(), BASE);
+    if let Some(start_h) = start_h {
+        if start_h == start_b {
+            sides.iter_mut().for_each(|s| *s |= HEAD);
+        } else {
+            union_of_docs(clauses[start_h].0, docs, merged);
+            merge_sides(candidates, sides, docs, merged);
+        }
+    }
+    let mut order: Vec<usize> = (0..clauses.len()).collect();
+    order.sort_by_key(|&i| (size(clauses[i].0), i));
+    for i in order {
+        let (lists, mut bits) = clauses[i];
+        // A side's own starting clause holds all its candidates already.
+        if i == start_b {
+            bits &= !BASE;
+        }
+        if Some(i) == start_h {
+            bits &= !HEAD;
+        }
+        if bits == 0 {
+            continue;
+        }
+        matched.clear();
+        matched.resize(candidates.len(), false);
+        for list in lists {
+            for_each_common(candidates, list, |c, _| matched[c] = true);
+        }
+        let mut kept = 0;
+        for c in 0..candidates.len() {
+            let s = if matched[c] {
+                sides[c]
+            } else {
+                sides[c] & !bits
+            };
+            if s != 0 {
+                candidates[kept] = candidates[c];
+                sides[kept] = s;
+                kept += 1;
             }
         }
-        let clauses = lists.len();
-        contrib.clear();
-        contrib.resize(candidates.len() * clauses, 0.0);
-        for (c, fields) in lists.iter().enumerate() {
-            for (field, list) in fields.iter().enumerate() {
-                if list.is_empty() {
-                    continue;
-                }
-                let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
-                for_each_found(candidates, list, |i, j| {
-                    contrib[i * clauses + c] += scorer.score(candidates[i], list.tfs[j]);
-                });
-            }
+        candidates.truncate(kept);
+        sides.truncate(kept);
+        if kept == 0 {
+            return;
         }
-        Ok(candidates
-            .iter()
+    }
+}
+
+/// Merges `other` (the head's starting documents) into `candidates` (the base's, all
+/// marked [`BASE`]), marking each document with the sides it came from.
+fn merge_sides(candidates: &mut Vec<u32>, sides: &mut Vec<u8>, other: &[u32], out: &mut Vec<u32>) {
+    let mut out_sides = Vec::with_capacity(candidates.len() + other.len());
+    out.clear();
+    let (mut i, mut j) = (0, 0);
+    while i < candidates.len() || j < other.len() {
+        let (a, b) = (candidates.get(i).copied(), other.get(j).copied());
+        match (a, b) {
+            (Some(x), Some(y)) if x == y => {
+                out.push(x);
+                out_sides.push(BASE | HEAD);
+                i += 1;
+                j += 1;
+            }
+            (Some(x), Some(y)) if x < y => {
+                out.push(x);
+                out_sides.push(BASE);
+                i += 1;
+            }
+            (Some(x), None) => {
+                out.push(x);
+                out_sides.push(BASE);
+                i += 1;
+            }
+            (_, Some(y)) => {
+                out.push(y);
+                out_sides.push(HEAD);
+                j += 1;
+            }
+            (None, None) => unreachable!("the loop runs while either list has documents"),
+        }
+    }
+    std::mem::swap(candidates, out);
+    *sides = out_sides;
+}
+
+/// Scores `docs` (ascending, every clause present) into `hits`: per clause, per field in
+/// field order, then the clauses summed in query order, as [`score_clauses`] sums.
+fn score_documents(
+    lists: &ClauseLists,
+    docs: &[u32],
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+    contrib: &mut Vec<f64>,
+    hits: &mut Vec<Hit>,
+) {
+    hits.clear();
+    let clauses = lists.len();
+    if docs.is_empty() || clauses == 0 {
+        return;
+    }
+    contrib.clear();
+    contrib.resize(docs.len() * clauses, 0.0);
+    for (c, fields) in lists.iter().enumerate() {
+        for (field, list) in fields.iter().enumerate() {
+            if list.is_empty() {
+                continue;
+            }
+            let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
+            for_each_common(docs, list, |i, j| {
+                contrib[i * clauses + c] += scorer.score(docs[i], list.tfs[j]);
+            });
+        }
+    }
+    hits.extend(
+        docs.iter()
             .zip(contrib.chunks_exact(clauses))
             .map(|(&doc, parts)| Hit {
                 doc,
                 score: parts.iter().fold(0.0, |sum, s| sum + s),
-            })
-            .collect())
-    })
+            }),
+    );
 }
 
-/// Buffers of [`retrieve_all`] kept per thread: a query of frequent terms holds
-/// candidates by the hundred thousand, and fresh buffers cost more than the work.
+/// Buffers of [`retrieve_all`] and [`matches_both`] kept per thread: a query of frequent
+/// terms holds candidates by the hundred thousand, and fresh buffers cost more than the
+/// work.
 #[derive(Default)]
 struct AllScratch {
     candidates: Vec<u32>,
+    /// Per candidate, the sides ([`BASE`], [`HEAD`]) it is still a candidate of.
+    sides: Vec<u8>,
+    /// Where [`union_of_docs`] merges before swapping.
+    merged: Vec<u32>,
     matched: Vec<bool>,
+    /// One side's documents, and their per-clause scores.
+    docs: Vec<u32>,
     contrib: Vec<f64>,
 }
 
@@ -519,8 +760,22 @@ thread_local! {
 }
 
 /// Calls `found(i, j)` for every candidate `i` (ascending documents) that `list` holds, at
-/// its index `j` in the list.
-fn for_each_found(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(usize, usize)) {
+/// its index `j` in the list, in ascending `i`. The shorter of the two is walked and the
+/// longer galloped through, so a short list costs its own length, not the candidates'.
+fn for_each_common(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(usize, usize)) {
+    if list.len() < candidates.len() {
+        let mut from = 0;
+        for (j, &doc) in list.docs.iter().enumerate() {
+            from = gallop(candidates, from, doc);
+            if from == candidates.len() {
+                break;
+            }
+            if candidates[from] == doc {
+                found(from, j);
+            }
+        }
+        return;
+    }
     let mut from = 0;
     for (i, &doc) in candidates.iter().enumerate() {
         from = gallop(&list.docs, from, doc);
@@ -534,21 +789,23 @@ fn for_each_found(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(
 }
 
 /// The documents of any of these lists (each ascending), ascending, without repeats,
-/// into `out`.
-fn union_of_docs(lists: &[Arc<Frequencies>], out: &mut Vec<u32>) {
+/// into `out`; `spare` is a buffer to merge into.
+fn union_of_docs(lists: &[Arc<Frequencies>], out: &mut Vec<u32>, spare: &mut Vec<u32>) {
     out.clear();
     for list in lists.iter().filter(|l| !l.is_empty()) {
         if out.is_empty() {
             out.extend_from_slice(&list.docs);
         } else {
-            *out = merge_sorted(out, &list.docs);
+            merge_sorted(out, &list.docs, spare);
+            std::mem::swap(out, spare);
         }
     }
 }
 
-/// Two ascending lists merged, a value in both kept once.
-fn merge_sorted(a: &[u32], b: &[u32]) -> Vec<u32> {
-    let mut out = Vec::with_capacity(a.len() + b.len());
+/// Two ascending lists merged into `out` (cleared first), a value in both kept once.
+fn merge_sorted(a: &[u32], b: &[u32], out: &mut Vec<u32>) {
+    out.clear();
+    out.reserve(a.len() + b.len());
     let (mut i, mut j) = (0, 0);
     while i < a.len() && j < b.len() {
         let (x, y) = (a[i], b[j]);
@@ -558,7 +815,6 @@ fn merge_sorted(a: &[u32], b: &[u32]) -> Vec<u32> {
     }
     out.extend_from_slice(&a[i..]);
     out.extend_from_slice(&b[j..]);
-    out
 }
 
 /// The first index at or after `from` whose document is not below `doc` (exponential then
@@ -657,9 +913,11 @@ mod tests {
     use proptest::prelude::*;
     use rustc_hash::FxHashMap;
 
-    /// Postings held in memory: key → (doc, position) pairs, two fields.
+    /// Postings held in memory: key → (doc, position) pairs, two fields. Frequencies are
+    /// kept too, so two reads of a key give the very same list (as a view's caches do).
     struct MapKeys {
         postings: Vec<FxHashMap<String, Arc<Postings>>>,
+        frequencies: Vec<FxHashMap<String, Arc<Frequencies>>>,
         lengths: Vec<Vec<u32>>,
     }
 
@@ -675,6 +933,12 @@ mod tests {
         }
         fn postings(&self, field: usize, key: &str) -> Result<Arc<Postings>, IndexError> {
             Ok(self.postings[field].get(key).cloned().unwrap_or_default())
+        }
+        fn frequencies(&self, field: usize, key: &str) -> Result<Arc<Frequencies>, IndexError> {
+            Ok(self.frequencies[field]
+                .get(key)
+                .cloned()
+                .unwrap_or_default())
         }
         fn keys(&self, field: usize) -> Vec<String> {
             let mut k: Vec<String> = self.postings[field].keys().cloned().collect();
@@ -699,26 +963,40 @@ mod tests {
                 }
             }
         }
+        let postings: Vec<FxHashMap<String, Arc<Postings>>> = pairs
+            .into_iter()
+            .map(|m| {
+                m.into_iter()
+                    .map(|(k, v)| (k, Arc::new(Postings::from_pairs(v))))
+                    .collect()
+            })
+            .collect();
+        let frequencies = postings
+            .iter()
+            .map(|m| {
+                m.iter()
+                    .map(|(k, p)| (k.clone(), Arc::new(Frequencies::from(&**p))))
+                    .collect()
+            })
+            .collect();
         MapKeys {
-            postings: pairs
-                .into_iter()
-                .map(|m| {
-                    m.into_iter()
-                        .map(|(k, v)| (k, Arc::new(Postings::from_pairs(v))))
-                        .collect()
-                })
-                .collect(),
+            postings,
+            frequencies,
             lengths,
         }
     }
 
     fn analyzer() -> Analyzer {
-        let text = "format: 1\nrevision: 1\nsynonyms:\n  - id: colours\n    equivalent: [red, green tram]\n";
+        analyzer_with("synonyms:\n  - id: colours\n    equivalent: [red, green tram]\n")
+    }
+
+    fn analyzer_with(rules: &str) -> Analyzer {
+        let text = format!("format: 1\nrevision: 1\n{rules}");
         let rs = load_sources(
             "t",
             vec![SourceFile {
                 name: "t.yaml".into(),
-                text: text.into(),
+                text,
             }],
         )
         .unwrap();
@@ -745,18 +1023,69 @@ mod tests {
             let text: Vec<&str> = query.iter().map(|&w| WORDS[w]).collect();
             let q = analyzer().analyze_query(&text.join(" "));
             let weights = [2.0, 1.0];
-            let fast = retrieve_all(&q, &source, &stats, &scoring, &weights).unwrap();
-            let dense = SCRATCH.with_borrow_mut(|scratch| {
+            let mut fast = Vec::new();
+            retrieve_all(&q, &source, &stats, &scoring, &weights, &mut fast).unwrap();
+            let mut dense = Vec::new();
+            SCRATCH.with_borrow_mut(|scratch| {
                 scratch.fit(docs.len());
                 score_clauses(&q, &source, &stats, &scoring, &weights, scratch).unwrap();
-                scratch.take_hits(q.expansions.len())
+                scratch.take_hits(q.expansions.len(), &mut dense);
             });
             let ids: Vec<String> = (0..docs.len()).map(|d| format!("d{d:03}")).collect();
             let order = DocOrder::by_id(&ids);
-            let (mut fast, mut dense) = (fast, dense);
             rank(&mut fast, &order);
             rank(&mut dense, &order);
             prop_assert_eq!(fast, dense);
+        }
+    }
+
+    proptest! {
+        /// Both sides found together give each side's hits exactly (documents and score
+        /// bits) as found alone: over one source, where the clauses a change leaves alone
+        /// are the very same lists, and over two sources, where nothing is shared.
+        #[test]
+        fn both_sides_together_equal_each_side_alone(
+            docs in prop::collection::vec(
+                prop::collection::vec(prop::collection::vec(0u8..6, 0..8), 2..=2), 1..40),
+            other_docs in prop::collection::vec(
+                prop::collection::vec(prop::collection::vec(0u8..6, 0..8), 2..=2), 1..40),
+            base_words in prop::collection::vec(0usize..6, 0..4),
+            head_words in prop::collection::vec(0usize..6, 0..4),
+            one_source in any::<bool>(),
+            cosine in any::<bool>(),
+            mode in 0usize..3,
+        ) {
+            let scoring = Scoring {
+                ranking: if cosine { Ranking::Cosine } else { Ranking::Bm25 },
+                mode: [MatchMode::All, MatchMode::Any, MatchMode::Min(2)][mode],
+                ..Scoring::default()
+            };
+            let base_source = source(&docs);
+            let other = if one_source { None } else { Some(source(&other_docs)) };
+            let head_source = other.as_ref().unwrap_or(&base_source);
+            let base_stats = Stats::compute(&base_source, &scoring).unwrap();
+            let head_stats = Stats::compute(head_source, &scoring).unwrap();
+            let words = |w: &[usize]| w.iter().map(|&i| WORDS[i]).collect::<Vec<_>>().join(" ");
+            let qb = analyzer().analyze_query(&words(&base_words));
+            let qh = analyzer_with("synonyms:\n  - id: vehicles\n    equivalent: [bus, tram]\n")
+                .analyze_query(&words(&head_words));
+            let weights = [2.0, 1.0];
+            let (mut alone_b, mut alone_h) = (Vec::new(), Vec::new());
+            matches_into(&qb, &base_source, &base_stats, &scoring, &weights, &mut alone_b).unwrap();
+            matches_into(&qh, head_source, &head_stats, &scoring, &weights, &mut alone_h).unwrap();
+            let (mut both_b, mut both_h) = (vec![Hit { doc: 7, score: 1.0 }], Vec::new());
+            matches_both(
+                &SideQuery { query: &qb, source: &base_source, stats: &base_stats },
+                &SideQuery { query: &qh, source: head_source, stats: &head_stats },
+                &scoring,
+                &weights,
+                &mut both_b,
+                &mut both_h,
+            )
+            .unwrap();
+            let bits = |v: &[Hit]| v.iter().map(|h| (h.doc, h.score.to_bits())).collect::<Vec<_>>();
+            prop_assert_eq!(bits(&both_b), bits(&alone_b));
+            prop_assert_eq!(bits(&both_h), bits(&alone_h));
         }
     }
 
@@ -783,11 +1112,11 @@ mod tests {
 
     #[test]
     fn merged_lists_keep_shared_documents_once() {
-        assert_eq!(
-            merge_sorted(&[1, 4, 6], &[2, 4, 9, 11]),
-            [1, 2, 4, 6, 9, 11]
-        );
-        assert_eq!(merge_sorted(&[], &[3]), [3]);
+        let mut out = vec![99];
+        merge_sorted(&[1, 4, 6], &[2, 4, 9, 11], &mut out);
+        assert_eq!(out, [1, 2, 4, 6, 9, 11]);
+        merge_sorted(&[], &[3], &mut out);
+        assert_eq!(out, [3]);
     }
 
     #[test]
