@@ -354,29 +354,40 @@ impl IndexPostings {
     /// Counts every document's tokens per field from the postings (term frequencies
     /// summed): the exact lengths of a surface index, which does not store them.
     pub fn surface_lengths(&self) -> Result<Vec<Vec<u32>>, IndexError> {
-        // Fields are counted in parallel, each into its own lengths.
-        (0..self.num_fields())
+        // Each (field, segment) is counted in parallel into its own segment-local lengths,
+        // then placed by corpus ord: one field holds most tokens, and its segments are
+        // what two cores can share.
+        let segments = self.searcher.segment_readers();
+        let parts = (0..self.num_fields())
+            .flat_map(|f| (0..segments.len()).map(move |s| (f, s)))
+            .collect::<Vec<_>>()
             .into_par_iter()
-            .map(|f| {
-                let mut lengths = vec![0u32; self.num_docs as usize];
-                for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
-                    let inverted = segment.inverted_index(self.fields.texts[f])?;
-                    let mut stream = inverted.terms().stream()?;
-                    while stream.advance() {
-                        let mut postings = inverted.read_postings_from_terminfo(
-                            stream.value(),
-                            IndexRecordOption::WithFreqs,
-                        )?;
-                        let mut doc = postings.doc();
-                        while doc != TERMINATED {
-                            lengths[self.ords[s][doc as usize] as usize] += postings.term_freq();
-                            doc = postings.advance();
-                        }
+            .map(|(f, s)| {
+                let segment = &segments[s];
+                let mut local = vec![0u32; segment.max_doc() as usize];
+                let inverted = segment.inverted_index(self.fields.texts[f])?;
+                let mut stream = inverted.terms().stream()?;
+                while stream.advance() {
+                    let mut postings = inverted.read_postings_from_terminfo(
+                        stream.value(),
+                        IndexRecordOption::WithFreqs,
+                    )?;
+                    let mut doc = postings.doc();
+                    while doc != TERMINATED {
+                        local[doc as usize] += postings.term_freq();
+                        doc = postings.advance();
                     }
                 }
-                Ok(lengths)
+                Ok((f, s, local))
             })
-            .collect()
+            .collect::<Result<Vec<_>, IndexError>>()?;
+        let mut lengths = vec![vec![0u32; self.num_docs as usize]; self.num_fields()];
+        for (f, s, local) in parts {
+            for (doc, len) in local.into_iter().enumerate() {
+                lengths[f][self.ords[s][doc] as usize] = len;
+            }
+        }
+        Ok(lengths)
     }
 
     /// The documents and term frequencies of `term` in `field`, without positions
@@ -392,26 +403,36 @@ impl IndexPostings {
 
     fn read_frequencies(&self, field: usize, term: &str) -> Result<Frequencies, IndexError> {
         let term = Term::from_field_text(self.fields.texts[field], term);
-        let mut pairs: Vec<(u32, u32)> = Vec::new();
+        let mut found = Vec::new();
         for (s, segment) in self.searcher.segment_readers().iter().enumerate() {
             let inverted = segment.inverted_index(self.fields.texts[field])?;
-            if let Some(mut postings) =
-                inverted.read_postings(&term, IndexRecordOption::WithFreqs)?
-            {
-                let mut doc = postings.doc();
-                while doc != TERMINATED {
-                    pairs.push((self.ords[s][doc as usize], postings.term_freq()));
-                    doc = postings.advance();
-                }
+            if let Some(info) = inverted.get_term_info(&term)? {
+                found.push((s, inverted, info));
             }
         }
-        if self.ords.len() > 1 {
-            // Each segment's run is ascending: a stable sort merges the runs.
-            pairs.sort_by_key(|p| p.0);
+        // Sized from the term dictionaries: a million-document list is read without the
+        // copies (and fresh pages) of a growing vector.
+        let total: usize = found.iter().map(|f| f.2.doc_freq as usize).sum();
+        // (ord, tf) packed in one number: ords are distinct, so sorting the numbers sorts
+        // by ord, and each segment's ascending runs of ords are merged by a stable sort.
+        let mut packed: Vec<u64> = Vec::with_capacity(total);
+        for (s, inverted, info) in &found {
+            let mut postings =
+                inverted.read_postings_from_terminfo(info, IndexRecordOption::WithFreqs)?;
+            let ords = &self.ords[*s];
+            let mut doc = postings.doc();
+            while doc != TERMINATED {
+                packed
+                    .push((u64::from(ords[doc as usize]) << 32) | u64::from(postings.term_freq()));
+                doc = postings.advance();
+            }
+        }
+        if found.len() > 1 {
+            packed.sort();
         }
         Ok(Frequencies {
-            docs: pairs.iter().map(|p| p.0).collect(),
-            tfs: pairs.iter().map(|p| p.1).collect(),
+            docs: packed.iter().map(|p| (p >> 32) as u32).collect(),
+            tfs: packed.iter().map(|&p| p as u32).collect(),
         })
     }
 

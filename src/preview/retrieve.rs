@@ -398,15 +398,28 @@ impl<'a> FieldScore<'a> {
     }
 
     fn score(&self, doc: u32, tf: u32) -> f64 {
+        self.score_with(self.norms()[doc as usize], tf)
+    }
+
+    /// Per document, the value [`FieldScore::score_with`] takes: BM25's length norm, or
+    /// the cosine norm.
+    fn norms(&self) -> &'a [f64] {
+        match *self {
+            FieldScore::Bm25 { k1_norms, .. } => k1_norms,
+            FieldScore::Cosine { norms, .. } => norms,
+        }
+    }
+
+    /// The score of `tf` in a document whose [`FieldScore::norms`] value is `norm`.
+    fn score_with(&self, norm: f64, tf: u32) -> f64 {
         let tf = tf as f64;
         match *self {
             FieldScore::Bm25 {
                 weight_idf,
                 k1_plus_1,
-                k1_norms,
-            } => weight_idf * (tf * k1_plus_1 / (tf + k1_norms[doc as usize])),
-            FieldScore::Cosine { weight, idf, norms } => {
-                let norm = norms[doc as usize];
+                ..
+            } => weight_idf * (tf * k1_plus_1 / (tf + norm)),
+            FieldScore::Cosine { weight, idf, .. } => {
                 let w = (1.0 + tf.ln()) * idf;
                 let s = if norm > 0.0 { w / norm } else { 0.0 };
                 weight * s
@@ -526,6 +539,7 @@ pub fn matches_both(
             sides,
             docs,
             contrib,
+            norms,
             ..
         } = scratch;
         for (bit, lists, stats, hits) in [
@@ -540,7 +554,7 @@ pub fn matches_both(
                     .filter(|(_, s)| **s & bit != 0)
                     .map(|(d, _)| *d),
             );
-            score_documents(lists, docs, stats, scoring, weights, contrib, hits);
+            score_documents(lists, docs, stats, scoring, weights, (contrib, norms), hits);
         }
         Ok(())
     })
@@ -565,9 +579,18 @@ fn retrieve_all(
         let AllScratch {
             candidates,
             contrib,
+            norms,
             ..
         } = scratch;
-        score_documents(&lists, candidates, stats, scoring, weights, contrib, hits);
+        score_documents(
+            &lists,
+            candidates,
+            stats,
+            scoring,
+            weights,
+            (contrib, norms),
+            hits,
+        );
         Ok(())
     })
 }
@@ -708,7 +731,7 @@ fn score_documents(
     stats: &Stats,
     scoring: &Scoring,
     weights: &[f64],
-    contrib: &mut Vec<f64>,
+    (contrib, norms): (&mut Vec<f64>, &mut Vec<f64>),
     hits: &mut Vec<Hit>,
 ) {
     hits.clear();
@@ -718,14 +741,25 @@ fn score_documents(
     }
     contrib.clear();
     contrib.resize(docs.len() * clauses, 0.0);
-    for (c, fields) in lists.iter().enumerate() {
-        for (field, list) in fields.iter().enumerate() {
+    // Field by field, the documents' norms are gathered once and read by every clause:
+    // a million documents' norms do not stay in cache between clauses. A clause's fields
+    // are still added in field order.
+    for (field, &weight) in weights.iter().enumerate() {
+        let mut gathered_yet = false;
+        for (c, clause) in lists.iter().enumerate() {
+            let list = &clause[field];
             if list.is_empty() {
                 continue;
             }
-            let scorer = FieldScore::new(scoring, stats, field, weights[field], list.len());
+            let scorer = FieldScore::new(scoring, stats, field, weight, list.len());
+            if !gathered_yet {
+                let all = scorer.norms();
+                norms.clear();
+                norms.extend(docs.iter().map(|&d| all[d as usize]));
+                gathered_yet = true;
+            }
             for_each_common(docs, list, |i, j| {
-                contrib[i * clauses + c] += scorer.score(docs[i], list.tfs[j]);
+                contrib[i * clauses + c] += scorer.score_with(norms[i], list.tfs[j]);
             });
         }
     }
@@ -750,9 +784,10 @@ struct AllScratch {
     /// Where [`union_of_docs`] merges before swapping.
     merged: Vec<u32>,
     matched: Vec<bool>,
-    /// One side's documents, and their per-clause scores.
+    /// One side's documents, their per-clause scores, and one field's norms of them.
     docs: Vec<u32>,
     contrib: Vec<f64>,
+    norms: Vec<f64>,
 }
 
 thread_local! {
