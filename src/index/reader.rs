@@ -108,13 +108,48 @@ impl Postings {
 
 /// One term's documents (ascending) and term frequencies, without positions: what a
 /// clause needs unless it holds a phrase. Reading no positions is most of the saving.
-#[derive(Clone, Debug, Default, PartialEq, Eq)]
+#[derive(Clone, Debug, Default)]
 pub struct Frequencies {
     pub docs: Vec<u32>,
     pub tfs: Vec<u32>,
+    /// The documents as a bit set, built the first time [`Frequencies::holds`] is asked.
+    bits: OnceLock<Box<[u64]>>,
 }
 
+impl PartialEq for Frequencies {
+    fn eq(&self, other: &Self) -> bool {
+        self.docs == other.docs && self.tfs == other.tfs
+    }
+}
+
+impl Eq for Frequencies {}
+
 impl Frequencies {
+    /// Documents (ascending, distinct) and their tfs.
+    pub fn new(docs: Vec<u32>, tfs: Vec<u32>) -> Self {
+        Frequencies {
+            docs,
+            tfs,
+            bits: OnceLock::new(),
+        }
+    }
+
+    /// Whether `doc` is in the list, in constant time: a frequent term's list is looked up
+    /// by candidates many times over, and a bit set answers faster than a search. The set
+    /// (one bit per document up to the last) is built once, so ask only of long lists.
+    pub fn holds(&self, doc: u32) -> bool {
+        let bits = self.bits.get_or_init(|| {
+            let words = self.docs.last().map_or(0, |&d| d as usize / 64 + 1);
+            let mut bits = vec![0u64; words];
+            for &d in &self.docs {
+                bits[d as usize / 64] |= 1 << (d % 64);
+            }
+            bits.into_boxed_slice()
+        });
+        bits.get(doc as usize / 64)
+            .is_some_and(|w| w & (1 << (doc % 64)) != 0)
+    }
+
     pub fn len(&self) -> usize {
         self.docs.len()
     }
@@ -139,10 +174,10 @@ impl Frequencies {
     }
 
     fn merge(a: &Frequencies, b: &Frequencies) -> Frequencies {
-        let mut out = Frequencies {
-            docs: Vec::with_capacity(a.len() + b.len()),
-            tfs: Vec::with_capacity(a.len() + b.len()),
-        };
+        let mut out = Frequencies::new(
+            Vec::with_capacity(a.len() + b.len()),
+            Vec::with_capacity(a.len() + b.len()),
+        );
         let (mut i, mut j) = (0, 0);
         while i < a.len() && j < b.len() {
             let (da, db) = (a.docs[i], b.docs[j]);
@@ -175,10 +210,7 @@ impl Frequencies {
 
 impl From<&Postings> for Frequencies {
     fn from(p: &Postings) -> Self {
-        Frequencies {
-            docs: p.docs.clone(),
-            tfs: p.tfs.clone(),
-        }
+        Frequencies::new(p.docs.clone(), p.tfs.clone())
     }
 }
 
@@ -430,10 +462,10 @@ impl IndexPostings {
         if found.len() > 1 {
             packed.sort();
         }
-        Ok(Frequencies {
-            docs: packed.iter().map(|p| (p >> 32) as u32).collect(),
-            tfs: packed.iter().map(|&p| p as u32).collect(),
-        })
+        Ok(Frequencies::new(
+            packed.iter().map(|p| (p >> 32) as u32).collect(),
+            packed.iter().map(|&p| p as u32).collect(),
+        ))
     }
 
     pub fn num_docs(&self) -> u32 {
@@ -542,22 +574,16 @@ mod tests {
 
     #[test]
     fn frequencies_sum_tfs_of_shared_documents() {
-        let a = Arc::new(Frequencies {
-            docs: vec![0, 2, 5],
-            tfs: vec![1, 2, 3],
-        });
-        let b = Arc::new(Frequencies {
-            docs: vec![2, 3],
-            tfs: vec![4, 1],
-        });
-        let c = Arc::new(Frequencies {
-            docs: vec![5, 9],
-            tfs: vec![1, 1],
-        });
+        let a = Arc::new(Frequencies::new(vec![0, 2, 5], vec![1, 2, 3]));
+        let b = Arc::new(Frequencies::new(vec![2, 3], vec![4, 1]));
+        let c = Arc::new(Frequencies::new(vec![5, 9], vec![1, 1]));
         let sum = Frequencies::sum(&[a, b, c]);
         assert_eq!(sum.docs, [0, 2, 3, 5, 9]);
         assert_eq!(sum.tfs, [1, 6, 1, 4, 1]);
         assert_eq!(Frequencies::sum(&[]), Frequencies::default());
+        for doc in 0..12 {
+            assert_eq!(sum.holds(doc), sum.docs.contains(&doc), "document {doc}");
+        }
     }
 
     #[test]

@@ -52,6 +52,11 @@
 //! Both sum a document's score in the same order (clauses in query order, fields in field
 //! order), so the two strategies cannot be told apart in the scores.
 //!
+//! A query the change touches is matched on both sides at once ([`matches_both`]): a
+//! change usually touches one of its clauses, and the clauses it leaves alone are the very
+//! same lists on both sides, so they filter the candidates of both sides in one pass. Each
+//! side's documents are then scored alone, so the hits are exactly those of [`matches`].
+//!
 //! A clause without a phrase reads documents and tfs only (a group's tfs are its members'
 //! summed, as members never share a position); positions are read for phrases alone.
 //! Only the top k of each side is ranked; gained and lost documents come from merging the

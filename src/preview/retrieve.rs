@@ -533,7 +533,7 @@ pub fn matches_both(
     let lists_b = clause_lists(base.query, base.source, weights.len())?;
     let lists_h = clause_lists(head.query, head.source, weights.len())?;
     ALL_SCRATCH.with_borrow_mut(|scratch| {
-        filter_by_every_clause(&lists_b, Some(&lists_h), scratch);
+        filter_by_every_clause(&lists_b, Some(&lists_h), base.stats.num_docs, scratch);
         let AllScratch {
             candidates,
             sides,
@@ -575,7 +575,7 @@ fn retrieve_all(
 ) -> Result<(), IndexError> {
     let lists = clause_lists(query, source, weights.len())?;
     ALL_SCRATCH.with_borrow_mut(|scratch| {
-        filter_by_every_clause(&lists, None, scratch);
+        filter_by_every_clause(&lists, None, stats.num_docs, scratch);
         let AllScratch {
             candidates,
             contrib,
@@ -605,8 +605,12 @@ const HEAD: u8 = 2;
 fn filter_by_every_clause(
     base: &ClauseLists,
     head: Option<&ClauseLists>,
+    num_docs: u32,
     scratch: &mut AllScratch,
 ) {
+    // A list holding one document in 64 or more is looked up through its bit set, which
+    // is then no bigger than twice the list.
+    let dense = num_docs as usize / 64;
     let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
     let same = |a: &Vec<Arc<Frequencies>>, b: &Vec<Arc<Frequencies>>| {
         a.iter().zip(b).all(|(x, y)| Arc::ptr_eq(x, y))
@@ -663,7 +667,14 @@ fn filter_by_every_clause(
         matched.clear();
         matched.resize(candidates.len(), false);
         for list in lists {
-            for_each_common(candidates, list, |c, _| matched[c] = true);
+            if list.len() > candidates.len() && list.len() >= dense {
+                // A long list: its bit set answers each candidate without a search.
+                for (c, &doc) in candidates.iter().enumerate() {
+                    matched[c] |= list.holds(doc);
+                }
+            } else {
+                for_each_common(candidates, list, |c, _| matched[c] = true);
+            }
         }
         let mut kept = 0;
         for c in 0..candidates.len() {
