@@ -323,14 +323,14 @@ pub fn matches_into(
     if clauses == 0 {
         return Ok(());
     }
+    if needs_every_clause(query, scoring) {
+        return retrieve_all(query, source, stats, scoring, weights, hits);
+    }
     let need = match scoring.mode {
         MatchMode::All => clauses,
         MatchMode::Any => 1,
         MatchMode::Min(k) => k.min(clauses),
     };
-    if need == clauses {
-        return retrieve_all(query, source, stats, scoring, weights, hits);
-    }
     SCRATCH.with_borrow_mut(|scratch| {
         scratch.fit(stats.num_docs as usize);
         let scored = score_clauses(query, source, stats, scoring, weights, scratch);
@@ -478,7 +478,8 @@ fn clause_lists(
         .collect()
 }
 
-/// Whether `query` needs every clause under `scoring`.
+/// Whether `query` needs every clause under `scoring` (`min:N` asks for at most the number
+/// of clauses, so a short query can still match).
 fn needs_every_clause(query: &AnalyzedQuery, scoring: &Scoring) -> bool {
     let clauses = query.expansions.len();
     match scoring.mode {
