@@ -635,6 +635,7 @@ fn filter_by_every_clause(
         candidates,
         merged,
         sides,
+        merged_sides,
         matched,
         docs,
         ..
@@ -648,7 +649,7 @@ fn filter_by_every_clause(
             sides.iter_mut().for_each(|s| *s |= HEAD);
         } else {
             union_of_docs(clauses[start_h].0, docs, merged);
-            merge_sides(candidates, sides, docs, merged);
+            merge_sides((candidates, sides), docs, (merged, merged_sides));
         }
     }
     let mut order: Vec<usize> = (0..clauses.len()).collect();
@@ -699,40 +700,30 @@ fn filter_by_every_clause(
 }
 
 /// Merges `other` (the head's starting documents) into `candidates` (the base's, all
-/// marked [`BASE`]), marking each document with the sides it came from.
-fn merge_sides(candidates: &mut Vec<u32>, sides: &mut Vec<u8>, other: &[u32], out: &mut Vec<u32>) {
-    let mut out_sides = Vec::with_capacity(candidates.len() + other.len());
+/// marked [`BASE`]), marking each document with the sides it came from; `out` and
+/// `out_sides` are buffers to merge into, as in [`merge_sorted`].
+fn merge_sides(
+    (candidates, sides): (&mut Vec<u32>, &mut Vec<u8>),
+    other: &[u32],
+    (out, out_sides): (&mut Vec<u32>, &mut Vec<u8>),
+) {
     out.clear();
+    out_sides.clear();
+    let (a, b) = (&candidates[..], other);
     let (mut i, mut j) = (0, 0);
-    while i < candidates.len() || j < other.len() {
-        let (a, b) = (candidates.get(i).copied(), other.get(j).copied());
-        match (a, b) {
-            (Some(x), Some(y)) if x == y => {
-                out.push(x);
-                out_sides.push(BASE | HEAD);
-                i += 1;
-                j += 1;
-            }
-            (Some(x), Some(y)) if x < y => {
-                out.push(x);
-                out_sides.push(BASE);
-                i += 1;
-            }
-            (Some(x), None) => {
-                out.push(x);
-                out_sides.push(BASE);
-                i += 1;
-            }
-            (_, Some(y)) => {
-                out.push(y);
-                out_sides.push(HEAD);
-                j += 1;
-            }
-            (None, None) => unreachable!("the loop runs while either list has documents"),
-        }
+    while i < a.len() && j < b.len() {
+        let (x, y) = (a[i], b[j]);
+        out.push(x.min(y));
+        out_sides.push(if x <= y { BASE } else { 0 } | if y <= x { HEAD } else { 0 });
+        i += usize::from(x <= y);
+        j += usize::from(y <= x);
     }
+    out.extend_from_slice(&a[i..]);
+    out_sides.resize(out.len(), BASE);
+    out.extend_from_slice(&b[j..]);
+    out_sides.resize(out.len(), HEAD);
     std::mem::swap(candidates, out);
-    *sides = out_sides;
+    std::mem::swap(sides, out_sides);
 }
 
 /// Scores `docs` (ascending, every clause present) into `hits`: per clause, per field in
@@ -793,6 +784,8 @@ struct AllScratch {
     candidates: Vec<u32>,
     /// Per candidate, the sides ([`BASE`], [`HEAD`]) it is still a candidate of.
     sides: Vec<u8>,
+    /// Where [`merge_sides`] merges the sides before swapping.
+    merged_sides: Vec<u8>,
     /// Where [`union_of_docs`] merges before swapping.
     merged: Vec<u32>,
     matched: Vec<bool>,
