@@ -230,7 +230,8 @@ impl<'a> View<'a> {
 
 struct Side<'a> {
     analyzer: &'a Analyzer,
-    view: &'a View<'a>,
+    keys: &'a ConflatedKeys<'a>,
+    stats: &'a Stats,
 }
 
 struct Opened {
@@ -378,13 +379,22 @@ pub fn run_opened(
             view
         })
     };
+    let head_view = head_view.as_ref().unwrap_or(&base_view);
     let base = Side {
         analyzer: base_a,
-        view: &base_view,
+        keys: &base_view.keys,
+        stats: &base_view.stats,
     };
     let head = Side {
         analyzer: head_a,
-        view: head_view.as_ref().unwrap_or(&base_view),
+        keys: &head_view.keys,
+        // Equal statistics (the same lengths, hence the same norms) are shared, which lets
+        // `matches_both` score a clause both sides share once for both.
+        stats: if head_view.stats == base_view.stats {
+            &base_view.stats
+        } else {
+            &head_view.stats
+        },
     };
 
     let ids: Vec<String> = corpus.documents.iter().map(|d| d.id.clone()).collect();
@@ -400,14 +410,7 @@ pub fn run_opened(
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
     // Hits in document order; only the top k is ever ranked.
     let run_side = |s: &Side, q: &crate::analysis::AnalyzedQuery, hits: &mut Vec<Hit>| {
-        matches_into(
-            q,
-            &s.view.keys,
-            &s.view.stats,
-            &options.scoring,
-            &weights,
-            hits,
-        )
+        matches_into(q, s.keys, s.stats, &options.scoring, &weights, hits)
     };
 
     // Judged query texts → ids; judged texts missing from the log are run too.
@@ -485,13 +488,13 @@ pub fn run_opened(
         matches_both(
             &SideQuery {
                 query: &qb,
-                source: &base.view.keys,
-                stats: &base.view.stats,
+                source: base.keys,
+                stats: base.stats,
             },
             &SideQuery {
                 query: &qh,
-                source: &head.view.keys,
-                stats: &head.view.stats,
+                source: head.keys,
+                stats: head.stats,
             },
             &options.scoring,
             &weights,

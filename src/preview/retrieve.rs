@@ -109,6 +109,7 @@ pub struct Hit {
 }
 
 /// Collection statistics of one side.
+#[derive(Debug, PartialEq)]
 pub struct Stats {
     pub num_docs: u32,
     pub avgdl: Vec<f64>,
@@ -535,6 +536,17 @@ pub fn matches_both(
     let lists_h = clause_lists(head.query, head.source, weights.len())?;
     ALL_SCRATCH.with_borrow_mut(|scratch| {
         filter_by_every_clause(&lists_b, Some(&lists_h), base.stats.num_docs, scratch);
+        if std::ptr::eq(base.stats, head.stats) {
+            score_both(
+                (&lists_b, &lists_h),
+                base.stats,
+                scoring,
+                weights,
+                scratch,
+                (base_hits, head_hits),
+            );
+            return Ok(());
+        }
         let AllScratch {
             candidates,
             sides,
@@ -559,6 +571,68 @@ pub fn matches_both(
         }
         Ok(())
     })
+}
+
+/// Scores the candidates `filter_by_every_clause` left, for both sides at once, when both
+/// sides share their statistics: a clause both read from the very same lists then gives a
+/// document the very same score on both, so it is scored once. Every clause is scored for
+/// every candidate (most candidates are documents of both sides), and each side sums its
+/// own clauses in its query order, as [`score_documents`] sums.
+fn score_both(
+    (lists_b, lists_h): (&ClauseLists, &ClauseLists),
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+    scratch: &mut AllScratch,
+    (base_hits, head_hits): (&mut Vec<Hit>, &mut Vec<Hit>),
+) {
+    let same = |a: &Vec<Arc<Frequencies>>, b: &Vec<Arc<Frequencies>>| {
+        a.iter().zip(b).all(|(x, y)| Arc::ptr_eq(x, y))
+    };
+    // The clauses scored: the base's, then those of the head no base clause shares.
+    let mut scored: Vec<&Vec<Arc<Frequencies>>> = lists_b.iter().collect();
+    let head_clauses: Vec<usize> = lists_h
+        .iter()
+        .map(|c| match lists_b.iter().position(|b| same(b, c)) {
+            Some(shared) => shared,
+            None => {
+                scored.push(c);
+                scored.len() - 1
+            }
+        })
+        .collect();
+    let AllScratch {
+        candidates,
+        sides,
+        contrib,
+        norms,
+        ..
+    } = scratch;
+    score_clause_matrix(
+        &scored,
+        candidates,
+        stats,
+        scoring,
+        weights,
+        (contrib, norms),
+    );
+    base_hits.clear();
+    head_hits.clear();
+    let width = scored.len();
+    for ((&doc, &side), row) in candidates
+        .iter()
+        .zip(sides.iter())
+        .zip(contrib.chunks_exact(width))
+    {
+        if side & BASE != 0 {
+            let score = (0..lists_b.len()).fold(0.0, |sum, c| sum + row[c]);
+            base_hits.push(Hit { doc, score });
+        }
+        if side & HEAD != 0 {
+            let score = head_clauses.iter().fold(0.0, |sum, &c| sum + row[c]);
+            head_hits.push(Hit { doc, score });
+        }
+    }
 }
 
 /// All clauses must match: the candidates are the documents of the rarest clause, and each
@@ -738,18 +812,40 @@ fn score_documents(
     hits: &mut Vec<Hit>,
 ) {
     hits.clear();
-    let clauses = lists.len();
-    if docs.is_empty() || clauses == 0 {
+    let clauses: Vec<&Vec<Arc<Frequencies>>> = lists.iter().collect();
+    if docs.is_empty() || clauses.is_empty() {
         return;
     }
+    score_clause_matrix(&clauses, docs, stats, scoring, weights, (contrib, norms));
+    hits.extend(
+        docs.iter()
+            .zip(contrib.chunks_exact(clauses.len()))
+            .map(|(&doc, parts)| Hit {
+                doc,
+                score: parts.iter().fold(0.0, |sum, s| sum + s),
+            }),
+    );
+}
+
+/// Fills `contrib` (one row per document of `docs`, ascending; one column per clause)
+/// with each clause's score in each document: its fields added in field order.
+fn score_clause_matrix(
+    clauses: &[&Vec<Arc<Frequencies>>],
+    docs: &[u32],
+    stats: &Stats,
+    scoring: &Scoring,
+    weights: &[f64],
+    (contrib, norms): (&mut Vec<f64>, &mut Vec<f64>),
+) {
+    let width = clauses.len();
     contrib.clear();
-    contrib.resize(docs.len() * clauses, 0.0);
+    contrib.resize(docs.len() * width, 0.0);
     // Field by field, the documents' norms are gathered once and read by every clause:
     // a million documents' norms do not stay in cache between clauses. A clause's fields
     // are still added in field order.
     for (field, &weight) in weights.iter().enumerate() {
         let mut gathered_yet = false;
-        for (c, clause) in lists.iter().enumerate() {
+        for (c, clause) in clauses.iter().enumerate() {
             let list = &clause[field];
             if list.is_empty() {
                 continue;
@@ -762,18 +858,10 @@ fn score_documents(
                 gathered_yet = true;
             }
             for_each_common(docs, list, |i, j| {
-                contrib[i * clauses + c] += scorer.score_with(norms[i], list.tfs[j]);
+                contrib[i * width + c] += scorer.score_with(norms[i], list.tfs[j]);
             });
         }
     }
-    hits.extend(
-        docs.iter()
-            .zip(contrib.chunks_exact(clauses))
-            .map(|(&doc, parts)| Hit {
-                doc,
-                score: parts.iter().fold(0.0, |sum, s| sum + s),
-            }),
-    );
 }
 
 /// Buffers of [`retrieve_all`] and [`matches_both`] kept per thread: a query of frequent
@@ -1104,7 +1192,9 @@ mod tests {
             let other = if one_source { None } else { Some(source(&other_docs)) };
             let head_source = other.as_ref().unwrap_or(&base_source);
             let base_stats = Stats::compute(&base_source, &scoring).unwrap();
-            let head_stats = Stats::compute(head_source, &scoring).unwrap();
+            let other_stats = Stats::compute(head_source, &scoring).unwrap();
+            // Over one source the sides share their statistics, as a preview shares them.
+            let head_stats = if one_source { &base_stats } else { &other_stats };
             let words = |w: &[usize]| w.iter().map(|&i| WORDS[i]).collect::<Vec<_>>().join(" ");
             let qb = analyzer().analyze_query(&words(&base_words));
             let qh = analyzer_with("synonyms:\n  - id: vehicles\n    equivalent: [bus, tram]\n")
@@ -1112,11 +1202,11 @@ mod tests {
             let weights = [2.0, 1.0];
             let (mut alone_b, mut alone_h) = (Vec::new(), Vec::new());
             matches_into(&qb, &base_source, &base_stats, &scoring, &weights, &mut alone_b).unwrap();
-            matches_into(&qh, head_source, &head_stats, &scoring, &weights, &mut alone_h).unwrap();
+            matches_into(&qh, head_source, head_stats, &scoring, &weights, &mut alone_h).unwrap();
             let (mut both_b, mut both_h) = (vec![Hit { doc: 7, score: 1.0 }], Vec::new());
             matches_both(
                 &SideQuery { query: &qb, source: &base_source, stats: &base_stats },
-                &SideQuery { query: &qh, source: head_source, stats: &head_stats },
+                &SideQuery { query: &qh, source: head_source, stats: head_stats },
                 &scoring,
                 &weights,
                 &mut both_b,
