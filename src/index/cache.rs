@@ -87,7 +87,7 @@ pub fn open_or_build(
         .map_err(io(cache_dir))?;
     let index = build_surface_index(corpus, surface, Some(tmp.path()), progress)?;
     let mut postings = IndexPostings::open(&index, n)?;
-    let lengths = postings.surface_lengths()?;
+    let (lengths, forms) = postings.surface_lengths_and_forms()?;
     let bytes: Vec<u8> = lengths
         .iter()
         .flatten()
@@ -97,7 +97,7 @@ pub fn open_or_build(
     postings.set_lengths(lengths);
     // The surface forms are kept beside the index from the start.
     postings.set_dir(tmp.path());
-    postings.surface_forms()?;
+    postings.keep_forms(forms)?;
     drop(postings);
     drop(index);
     fs::write(tmp.path().join(MARKER), format!("{FORMAT_VERSION}\n")).map_err(io(tmp.path()))?;

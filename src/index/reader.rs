@@ -232,6 +232,9 @@ pub struct IndexPostings {
     forms: OnceLock<Arc<SurfaceForms>>,
 }
 
+/// Where a cached index's surface forms are kept beside it.
+const FORMS_FILE: &str = "lexdelta-forms.bin";
+
 /// Positions, and separately postings, kept in the read caches before they are emptied:
 /// with a 4-byte position and an 8-byte posting, at most about 192 MiB and 384 MiB. At a
 /// million documents, the lists a typical change's queries read all fit (a smaller budget
@@ -325,7 +328,7 @@ impl IndexPostings {
         }
         let forms = sidecar::load_or_compute(
             self.dir.as_deref(),
-            "lexdelta-forms.bin",
+            FORMS_FILE,
             SurfaceForms::decode,
             SurfaceForms::encode,
             || {
@@ -370,11 +373,13 @@ impl IndexPostings {
         )
     }
 
-    /// Opens a surface index, counting document lengths from its postings.
+    /// Opens a surface index, counting document lengths (and listing the surface forms)
+    /// from its postings.
     pub fn open_surface(index: &Index, num_fields: usize) -> Result<Self, IndexError> {
         let mut postings = IndexPostings::open(index, num_fields)?;
-        let lengths = postings.surface_lengths()?;
+        let (lengths, forms) = postings.surface_lengths_and_forms()?;
         postings.set_lengths(lengths);
+        postings.keep_forms(forms)?;
         Ok(postings)
     }
 
@@ -383,9 +388,23 @@ impl IndexPostings {
         self.lengths = lengths;
     }
 
+    /// Keeps `forms` as this index's surface forms (and beside a cached index, when its
+    /// directory is set): what [`IndexPostings::surface_forms`] then answers.
+    pub fn keep_forms(&self, forms: SurfaceForms) -> Result<Arc<SurfaceForms>, IndexError> {
+        let forms = sidecar::load_or_compute(
+            self.dir.as_deref(),
+            FORMS_FILE,
+            SurfaceForms::decode,
+            SurfaceForms::encode,
+            || Ok::<_, IndexError>(forms),
+        )?;
+        Ok(Arc::clone(self.forms.get_or_init(|| Arc::new(forms))))
+    }
+
     /// Counts every document's tokens per field from the postings (term frequencies
-    /// summed): the exact lengths of a surface index, which does not store them.
-    pub fn surface_lengths(&self) -> Result<Vec<Vec<u32>>, IndexError> {
+    /// summed): the exact lengths of a surface index, which does not store them. The same
+    /// walk through the term dictionaries lists every field's terms: the surface forms.
+    pub fn surface_lengths_and_forms(&self) -> Result<(Vec<Vec<u32>>, SurfaceForms), IndexError> {
         // Each (field, segment) is counted in parallel into its own segment-local lengths,
         // then placed by corpus ord: one field holds most tokens, and its segments are
         // what two cores can share.
@@ -397,9 +416,13 @@ impl IndexPostings {
             .map(|(f, s)| {
                 let segment = &segments[s];
                 let mut local = vec![0u32; segment.max_doc() as usize];
+                let mut terms = Vec::new();
                 let inverted = segment.inverted_index(self.fields.texts[f])?;
                 let mut stream = inverted.terms().stream()?;
                 while stream.advance() {
+                    if let Ok(text) = std::str::from_utf8(stream.key()) {
+                        terms.push(text.to_string());
+                    }
                     let mut postings = inverted.read_postings_from_terminfo(
                         stream.value(),
                         IndexRecordOption::WithFreqs,
@@ -410,16 +433,25 @@ impl IndexPostings {
                         doc = postings.advance();
                     }
                 }
-                Ok((f, s, local))
+                Ok((f, s, local, terms))
             })
             .collect::<Result<Vec<_>, IndexError>>()?;
         let mut lengths = vec![vec![0u32; self.num_docs as usize]; self.num_fields()];
-        for (f, s, local) in parts {
+        let mut terms: Vec<Vec<String>> = vec![Vec::new(); self.num_fields()];
+        for (f, s, local, segment_terms) in parts {
             for (doc, len) in local.into_iter().enumerate() {
                 lengths[f][self.ords[s][doc] as usize] = len;
             }
+            terms[f].extend(segment_terms);
         }
-        Ok(lengths)
+        if segments.len() > 1 {
+            terms.par_iter_mut().for_each(|t| {
+                // Each segment's terms are a sorted run: a stable sort merges the runs.
+                t.sort();
+                t.dedup();
+            });
+        }
+        Ok((lengths, SurfaceForms::from_fields(&terms)))
     }
 
     /// The documents and term frequencies of `term` in `field`, without positions
