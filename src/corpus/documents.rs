@@ -7,6 +7,7 @@ use std::path::{Path, PathBuf};
 
 use rand::SeedableRng;
 use rand::seq::index::sample;
+use rayon::prelude::*;
 use serde::Serialize;
 
 use super::CorpusError;
@@ -181,8 +182,14 @@ fn read(path: &Path, options: &DocOptions, texts: bool) -> Result<Corpus, Corpus
     })
 }
 
-/// JSON Lines read line by line, every byte hashed as read: the file is never held whole
-/// beside its documents (a million documents would otherwise need twice their size).
+/// How many bytes of whole lines [`stream_json_lines`] takes at a time.
+const BLOCK: usize = 8 << 20;
+
+/// JSON Lines read in blocks of whole lines, every byte hashed as read: the file is never
+/// held whole beside its documents (a million documents would otherwise need twice their
+/// size). A block's lines are parsed in parallel while the block is hashed; the documents
+/// keep file order, and the first bad line in file order is the error, as when reading
+/// line by line.
 fn stream_json_lines(
     path: &Path,
     options: &DocOptions,
@@ -195,36 +202,71 @@ fn stream_json_lines(
     };
     let mut reader = BufReader::with_capacity(1 << 20, fs::File::open(path).map_err(io)?);
     let mut out = Vec::new();
-    let mut line = Vec::new();
-    let (mut i, mut offset) = (0usize, 0usize);
+    let mut block = Vec::new();
+    let (mut first_line, mut offset) = (0usize, 0usize);
     loop {
-        line.clear();
-        let read = reader.read_until(b'\n', &mut line).map_err(io)?;
-        if read == 0 {
+        block.clear();
+        while block.len() < BLOCK {
+            if reader.read_until(b'\n', &mut block).map_err(io)? == 0 {
+                break;
+            }
+        }
+        if block.is_empty() {
             break;
         }
-        hasher.update(&line);
-        let text = std::str::from_utf8(&line).map_err(|e| CorpusError::Invalid {
-            path: path.to_path_buf(),
-            message: format!(
-                "not UTF-8 text (invalid byte at offset {}, line {})",
-                offset + e.valid_up_to(),
-                i + 1
-            ),
-        })?;
-        let text = text.strip_suffix('\n').unwrap_or(text);
-        let text = text.strip_suffix('\r').unwrap_or(text);
-        if !text.trim().is_empty() {
-            let mut document = parse_json_line(path, i, text, options)?;
-            if !texts {
-                document.texts = Vec::new();
-            }
-            out.push(document);
+        // (line number, offset in the file, bytes with the line's end) per line.
+        let mut lines = Vec::new();
+        let mut start = 0;
+        for piece in block.split_inclusive(|&b| b == b'\n') {
+            lines.push((first_line + lines.len(), offset + start, piece));
+            start += piece.len();
         }
-        offset += read;
-        i += 1;
+        let (_, parsed) = rayon::join(
+            || hasher.update(&block),
+            || {
+                lines
+                    .par_iter()
+                    .map(|&(i, at, line)| document_of_line(path, i, at, line, options, texts))
+                    .collect::<Vec<_>>()
+            },
+        );
+        for document in parsed {
+            out.extend(document?);
+        }
+        first_line += lines.len();
+        offset += block.len();
     }
     Ok(out)
+}
+
+/// The document on line `i` (0-based) starting at byte `offset` of the file; `None` for a
+/// blank line.
+fn document_of_line(
+    path: &Path,
+    i: usize,
+    offset: usize,
+    line: &[u8],
+    options: &DocOptions,
+    texts: bool,
+) -> Result<Option<Document>, CorpusError> {
+    let text = std::str::from_utf8(line).map_err(|e| CorpusError::Invalid {
+        path: path.to_path_buf(),
+        message: format!(
+            "not UTF-8 text (invalid byte at offset {}, line {})",
+            offset + e.valid_up_to(),
+            i + 1
+        ),
+    })?;
+    let text = text.strip_suffix('\n').unwrap_or(text);
+    let text = text.strip_suffix('\r').unwrap_or(text);
+    if text.trim().is_empty() {
+        return Ok(None);
+    }
+    let mut document = parse_json_line(path, i, text, options)?;
+    if !texts {
+        document.texts = Vec::new();
+    }
+    Ok(Some(document))
 }
 
 /// One JSON Lines document; `i` is the 0-based line (errors name the 1-based one).

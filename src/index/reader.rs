@@ -5,7 +5,7 @@ use std::sync::{Arc, Mutex, OnceLock};
 
 use rayon::prelude::*;
 use rustc_hash::FxHashMap;
-use tantivy::postings::Postings as _;
+use tantivy::postings::{BlockSegmentPostings, Postings as _};
 use tantivy::schema::IndexRecordOption;
 use tantivy::{DocSet, Index, Searcher, TERMINATED, Term};
 
@@ -419,18 +419,29 @@ impl IndexPostings {
                 let mut terms = Vec::new();
                 let inverted = segment.inverted_index(self.fields.texts[f])?;
                 let mut stream = inverted.terms().stream()?;
+                // Read a block of documents and tfs at a time, through one reader reset
+                // for each term: most terms are rare, and a reader per term cost more than
+                // the term's postings.
+                let mut reader: Option<BlockSegmentPostings> = None;
                 while stream.advance() {
                     if let Ok(text) = std::str::from_utf8(stream.key()) {
                         terms.push(text.to_string());
                     }
-                    let mut postings = inverted.read_postings_from_terminfo(
-                        stream.value(),
-                        IndexRecordOption::WithFreqs,
-                    )?;
-                    let mut doc = postings.doc();
-                    while doc != TERMINATED {
-                        local[doc as usize] += postings.term_freq();
-                        doc = postings.advance();
+                    let postings = match &mut reader {
+                        Some(reader) => {
+                            inverted.reset_block_postings_from_terminfo(stream.value(), reader)?;
+                            reader
+                        }
+                        None => reader.insert(inverted.read_block_postings_from_terminfo(
+                            stream.value(),
+                            IndexRecordOption::WithFreqs,
+                        )?),
+                    };
+                    while !postings.docs().is_empty() {
+                        for (&doc, &tf) in postings.docs().iter().zip(postings.freqs()) {
+                            local[doc as usize] += tf;
+                        }
+                        postings.advance();
                     }
                 }
                 Ok((f, s, local, terms))
@@ -481,14 +492,19 @@ impl IndexPostings {
         // by ord, and each segment's ascending runs of ords are merged by a stable sort.
         let mut packed: Vec<u64> = Vec::with_capacity(total);
         for (s, inverted, info) in &found {
+            // A block of documents and tfs at a time.
             let mut postings =
-                inverted.read_postings_from_terminfo(info, IndexRecordOption::WithFreqs)?;
+                inverted.read_block_postings_from_terminfo(info, IndexRecordOption::WithFreqs)?;
             let ords = &self.ords[*s];
-            let mut doc = postings.doc();
-            while doc != TERMINATED {
-                packed
-                    .push((u64::from(ords[doc as usize]) << 32) | u64::from(postings.term_freq()));
-                doc = postings.advance();
+            while !postings.docs().is_empty() {
+                packed.extend(
+                    postings
+                        .docs()
+                        .iter()
+                        .zip(postings.freqs())
+                        .map(|(&doc, &tf)| (u64::from(ords[doc as usize]) << 32) | u64::from(tf)),
+                );
+                postings.advance();
             }
         }
         if found.len() > 1 {
