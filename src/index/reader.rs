@@ -112,8 +112,44 @@ impl Postings {
 pub struct Frequencies {
     pub docs: Vec<u32>,
     pub tfs: Vec<u32>,
-    /// The documents as a bit set, built the first time [`Frequencies::holds`] is asked.
-    bits: OnceLock<Box<[u64]>>,
+    /// The documents as a bit set, built the first time [`Frequencies::holds`] or
+    /// [`Frequencies::position`] is asked.
+    bits: OnceLock<DocBits>,
+}
+
+/// A list's documents as a bit set, with the number of documents before each block of
+/// [`RANK_BLOCK`] words, so a document's place in the list is a few population counts.
+#[derive(Clone, Debug, Default)]
+struct DocBits {
+    words: Box<[u64]>,
+    ranks: Box<[u32]>,
+}
+
+/// Words per counted block: the counts cost a sixteenth of the bit set, and a place costs
+/// at most this many population counts.
+const RANK_BLOCK: usize = 8;
+
+impl DocBits {
+    fn new(docs: &[u32]) -> DocBits {
+        let len = docs.last().map_or(0, |&d| d as usize / 64 + 1);
+        let mut words = vec![0u64; len];
+        for &d in docs {
+            words[d as usize / 64] |= 1 << (d % 64);
+        }
+        let mut before = 0u32;
+        let ranks = words
+            .chunks(RANK_BLOCK)
+            .map(|block| {
+                let here = before;
+                before += block.iter().map(|w| w.count_ones()).sum::<u32>();
+                here
+            })
+            .collect();
+        DocBits {
+            words: words.into_boxed_slice(),
+            ranks,
+        }
+    }
 }
 
 impl PartialEq for Frequencies {
@@ -136,18 +172,39 @@ impl Frequencies {
 
     /// Whether `doc` is in the list, in constant time: a frequent term's list is looked up
     /// by candidates many times over, and a bit set answers faster than a search. The set
-    /// (one bit per document up to the last) is built once, so ask only of long lists.
+    /// (one bit per document up to the last) is built once, so ask only of long lists
+    /// ([`Frequencies::is_long`]).
     pub fn holds(&self, doc: u32) -> bool {
-        let bits = self.bits.get_or_init(|| {
-            let words = self.docs.last().map_or(0, |&d| d as usize / 64 + 1);
-            let mut bits = vec![0u64; words];
-            for &d in &self.docs {
-                bits[d as usize / 64] |= 1 << (d % 64);
-            }
-            bits.into_boxed_slice()
-        });
-        bits.get(doc as usize / 64)
+        let bits = self.bits.get_or_init(|| DocBits::new(&self.docs));
+        bits.words
+            .get(doc as usize / 64)
             .is_some_and(|w| w & (1 << (doc % 64)) != 0)
+    }
+
+    /// Where `doc` is in the list (its index in `docs` and `tfs`), if it is, in constant
+    /// time through the same bit set as [`Frequencies::holds`].
+    pub fn position(&self, doc: u32) -> Option<usize> {
+        let bits = self.bits.get_or_init(|| DocBits::new(&self.docs));
+        let at = doc as usize / 64;
+        let word = *bits.words.get(at)?;
+        let bit = 1u64 << (doc % 64);
+        if word & bit == 0 {
+            return None;
+        }
+        let block = at / RANK_BLOCK;
+        let before: u32 = bits.words[block * RANK_BLOCK..at]
+            .iter()
+            .map(|w| w.count_ones())
+            .sum();
+        Some((bits.ranks[block] + before + (word & (bit - 1)).count_ones()) as usize)
+    }
+
+    /// Whether the list holds one document in 64 or more up to its last: then its bit set
+    /// ([`Frequencies::holds`], [`Frequencies::position`]) is no bigger than twice the list.
+    pub fn is_long(&self) -> bool {
+        self.docs
+            .last()
+            .is_some_and(|&last| self.docs.len() >= (last as usize + 1) / 64)
     }
 
     pub fn len(&self) -> usize {
@@ -609,6 +666,24 @@ impl Postings {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use proptest::prelude::*;
+
+    proptest! {
+        /// The bit set's answers are the sorted list's: whether a document is there, and
+        /// where (its index, which `tfs` shares).
+        #[test]
+        fn bit_set_places_are_the_list_places(
+            picked in prop::collection::btree_set(0u32..3000, 0..400),
+        ) {
+            let docs: Vec<u32> = picked.into_iter().collect();
+            let list = Frequencies::new(docs.clone(), vec![1; docs.len()]);
+            for doc in 0..3100 {
+                let expected = docs.binary_search(&doc).ok();
+                prop_assert_eq!(list.position(doc), expected);
+                prop_assert_eq!(list.holds(doc), expected.is_some());
+            }
+        }
+    }
 
     #[test]
     fn union_merges_positions_and_sums_tf() {

@@ -891,6 +891,15 @@ thread_local! {
 /// its index `j` in the list, in ascending `i`. The shorter of the two is walked and the
 /// longer galloped through, so a short list costs its own length, not the candidates'.
 fn for_each_common(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(usize, usize)) {
+    if list.len() > candidates.len() && list.is_long() {
+        // A long list: its bit set gives each candidate's place without a search.
+        for (i, &doc) in candidates.iter().enumerate() {
+            if let Some(j) = list.position(doc) {
+                found(i, j);
+            }
+        }
+        return;
+    }
     if list.len() < candidates.len() {
         let mut from = 0;
         for (j, &doc) in list.docs.iter().enumerate() {
