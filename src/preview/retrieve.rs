@@ -900,6 +900,15 @@ fn for_each_common(candidates: &[u32], list: &Frequencies, mut found: impl FnMut
         }
         return;
     }
+    let (short, long) = if list.len() < candidates.len() {
+        (list.len(), candidates.len())
+    } else {
+        (candidates.len(), list.len())
+    };
+    if long <= short * WALK_RATIO {
+        walk_common(candidates, &list.docs, found);
+        return;
+    }
     if list.len() < candidates.len() {
         let mut from = 0;
         for (j, &doc) in list.docs.iter().enumerate() {
@@ -922,6 +931,25 @@ fn for_each_common(candidates: &[u32], list: &Frequencies, mut found: impl FnMut
         if list.docs[from] == doc {
             found(i, from);
         }
+    }
+}
+
+/// Up to this ratio of lengths, walking two lists side by side (a few predictable steps
+/// per document) beats galloping through the longer (a search, its branches mispredicted,
+/// per document of the shorter).
+const WALK_RATIO: usize = 8;
+
+/// Calls `found(i, j)` for every value in both `a[i]` and `b[j]` (both ascending), walking
+/// both side by side.
+fn walk_common(a: &[u32], b: &[u32], mut found: impl FnMut(usize, usize)) {
+    let (mut i, mut j) = (0, 0);
+    while i < a.len() && j < b.len() {
+        let (x, y) = (a[i], b[j]);
+        if x == y {
+            found(i, j);
+        }
+        i += usize::from(x <= y);
+        j += usize::from(y <= x);
     }
 }
 
