@@ -535,7 +535,7 @@ pub fn matches_both(
     let lists_b = clause_lists(base.query, base.source, weights.len())?;
     let lists_h = clause_lists(head.query, head.source, weights.len())?;
     ALL_SCRATCH.with_borrow_mut(|scratch| {
-        filter_by_every_clause(&lists_b, Some(&lists_h), base.stats.num_docs, scratch);
+        filter_by_every_clause(&lists_b, Some(&lists_h), scratch);
         if std::ptr::eq(base.stats, head.stats) {
             score_both(
                 (&lists_b, &lists_h),
@@ -586,14 +586,11 @@ fn score_both(
     scratch: &mut AllScratch,
     (base_hits, head_hits): (&mut Vec<Hit>, &mut Vec<Hit>),
 ) {
-    let same = |a: &Vec<Arc<Frequencies>>, b: &Vec<Arc<Frequencies>>| {
-        a.iter().zip(b).all(|(x, y)| Arc::ptr_eq(x, y))
-    };
     // The clauses scored: the base's, then those of the head no base clause shares.
     let mut scored: Vec<&Vec<Arc<Frequencies>>> = lists_b.iter().collect();
     let head_clauses: Vec<usize> = lists_h
         .iter()
-        .map(|c| match lists_b.iter().position(|b| same(b, c)) {
+        .map(|c| match lists_b.iter().position(|b| same_lists(b, c)) {
             Some(shared) => shared,
             None => {
                 scored.push(c);
@@ -650,7 +647,7 @@ fn retrieve_all(
 ) -> Result<(), IndexError> {
     let lists = clause_lists(query, source, weights.len())?;
     ALL_SCRATCH.with_borrow_mut(|scratch| {
-        filter_by_every_clause(&lists, None, stats.num_docs, scratch);
+        filter_by_every_clause(&lists, None, scratch);
         let AllScratch {
             candidates,
             contrib,
@@ -670,6 +667,11 @@ fn retrieve_all(
     })
 }
 
+/// Whether two clauses read the very same lists, field by field.
+fn same_lists(a: &[Arc<Frequencies>], b: &[Arc<Frequencies>]) -> bool {
+    a.iter().zip(b).all(|(x, y)| Arc::ptr_eq(x, y))
+}
+
 /// Which side a candidate is still a candidate of.
 const BASE: u8 = 1;
 const HEAD: u8 = 2;
@@ -680,20 +682,16 @@ const HEAD: u8 = 2;
 fn filter_by_every_clause(
     base: &ClauseLists,
     head: Option<&ClauseLists>,
-    num_docs: u32,
     scratch: &mut AllScratch,
 ) {
-    // A list holding one document in 64 or more is looked up through its bit set, which
-    // is then no bigger than twice the list.
-    let dense = num_docs as usize / 64;
     let size = |c: &Vec<Arc<Frequencies>>| c.iter().map(|p| p.len()).sum::<usize>();
-    let same = |a: &Vec<Arc<Frequencies>>, b: &Vec<Arc<Frequencies>>| {
-        a.iter().zip(b).all(|(x, y)| Arc::ptr_eq(x, y))
-    };
     // Every distinct clause once, with the sides that hold it.
     let mut clauses: Vec<(&Vec<Arc<Frequencies>>, u8)> = base.iter().map(|c| (c, BASE)).collect();
     for c in head.into_iter().flatten() {
-        match clauses.iter_mut().find(|(b, s)| *s == BASE && same(b, c)) {
+        match clauses
+            .iter_mut()
+            .find(|(b, s)| *s == BASE && same_lists(b, c))
+        {
             Some(shared) => shared.1 |= HEAD,
             None => clauses.push((c, HEAD)),
         }
@@ -743,7 +741,7 @@ fn filter_by_every_clause(
         matched.clear();
         matched.resize(candidates.len(), false);
         for list in lists {
-            if list.len() > candidates.len() && list.len() >= dense {
+            if list.len() > candidates.len() && list.is_long() {
                 // A long list: its bit set answers each candidate without a search.
                 for (c, &doc) in candidates.iter().enumerate() {
                     matched[c] |= list.holds(doc);
@@ -888,8 +886,10 @@ thread_local! {
 }
 
 /// Calls `found(i, j)` for every candidate `i` (ascending documents) that `list` holds, at
-/// its index `j` in the list, in ascending `i`. The shorter of the two is walked and the
-/// longer galloped through, so a short list costs its own length, not the candidates'.
+/// its index `j` in the list, in ascending `i`. A long list gives each candidate's place
+/// through its bit set; lists of like lengths are walked side by side; otherwise the
+/// shorter is walked and the longer galloped through, so a short list costs its own
+/// length, not the candidates'.
 fn for_each_common(candidates: &[u32], list: &Frequencies, mut found: impl FnMut(usize, usize)) {
     if list.len() > candidates.len() && list.is_long() {
         // A long list: its bit set gives each candidate's place without a search.
