@@ -52,8 +52,8 @@ pub(crate) const SURFACE_TOKENIZER: &str = "lexdelta-surface";
 
 /// Indexes the surface forms of every document, tokenized by tantivy's indexing threads
 /// with the surface stage. Document lengths are not stored in the index: they are counted
-/// from the postings afterwards ([`IndexPostings::surface_lengths_and_forms`]). `dir: None` builds in
-/// memory.
+/// from the postings afterwards ([`IndexPostings::surface_lengths_and_forms`]).
+/// `dir: None` builds in memory.
 ///
 /// [`IndexPostings::surface_lengths_and_forms`]: super::IndexPostings::surface_lengths_and_forms
 pub fn build_surface_index(
