@@ -55,7 +55,7 @@
 //! A query the change touches is matched on both sides at once ([`matches_both`]): a
 //! change usually touches one of its clauses, and the clauses it leaves alone are the very
 //! same lists on both sides, so they filter the candidates of both sides in one pass. Each
-//! side's documents are then scored alone, so the hits are exactly those of [`matches`].
+//! side's documents are then scored alone, so the hits are exactly those of [`matches()`].
 //!
 //! A clause without a phrase reads documents and tfs only (a group's tfs are its members'
 //! summed, as members never share a position); positions are read for phrases alone.

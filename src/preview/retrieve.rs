@@ -309,7 +309,7 @@ pub fn matches(
     Ok(hits)
 }
 
-/// [`matches`] into `hits` (cleared first): a buffer the caller reuses from query to query,
+/// [`matches()`] into `hits` (cleared first): a buffer the caller reuses from query to query,
 /// as a million-document query's hits are megabytes of fresh pages otherwise.
 pub fn matches_into(
     query: &AnalyzedQuery,
@@ -497,11 +497,11 @@ pub struct SideQuery<'a> {
     pub stats: &'a Stats,
 }
 
-/// Both sides' [`matches`] of one query, into `base_hits` and `head_hits`. When both need
+/// Both sides' [`matches()`] of one query, into `base_hits` and `head_hits`. When both need
 /// every clause, the two are found together: a clause both sides read from the very same
 /// list (the clauses a change leaves alone) filters the candidates of both in one pass, so
 /// a query whose change touches one clause pays for its other clauses once, not twice.
-/// Each side is then scored alone, so the hits are exactly what [`matches`] gives.
+/// Each side is then scored alone, so the hits are exactly what [`matches()`] gives.
 pub fn matches_both(
     base: &SideQuery,
     head: &SideQuery,

@@ -1,7 +1,7 @@
 //! A spanned YAML tree: the one place that talks to the YAML parser.
 //!
 //! Rule files are read into a small generic tree whose every node knows its line and column,
-//! and the schema in [`super::schema`] walks that tree. Doing the schema by hand (instead of
+//! and the schema in `schema.rs` walks that tree. Doing the schema by hand (instead of
 //! deriving it) is what lets every diagnostic name the exact key or value, suggest a key for
 //! a misspelt one, and say what was expected.
 //!
