@@ -1,0 +1,260 @@
+//! Evaluating the planned queries on both sides, in parallel: which documents each side
+//! matches, its top k, and for a changed query what was gained, lost and why.
+
+use rayon::prelude::*;
+
+use super::attribution::Sides;
+use super::change::{ChangeSet, same_expansions, touched_keys};
+use super::plan::QueryPlan;
+use super::report::{DocRef, Label, QueryChange, RankedDoc};
+use super::retrieve::{DocOrder, Hit, SideQuery, matches_both, matches_into, top_hits};
+use super::views::Side;
+use super::{PreviewError, PreviewOptions};
+use crate::analysis::AnalyzedQuery;
+use crate::corpus::Corpus;
+use crate::metrics::{self, MetricsError};
+
+/// One query's result on both sides, before it is folded into the report.
+pub(super) struct QueryOutcome {
+    pub evaluated: bool,
+    pub label: Label,
+    pub top_b: Vec<RankedDoc>,
+    pub top_h: Vec<RankedDoc>,
+    /// Listed in the report: a changed query of the log.
+    pub change: Option<QueryChange>,
+}
+
+/// What evaluating a query reads.
+pub(super) struct Engine<'a> {
+    pub base: Side<'a>,
+    pub head: Side<'a>,
+    pub change: &'a ChangeSet,
+    pub attribution: Sides<'a>,
+    pub corpus: &'a Corpus,
+    pub ids: &'a [String],
+    pub order: &'a DocOrder,
+    pub weights: &'a [f64],
+    pub options: &'a PreviewOptions,
+}
+
+thread_local! {
+    /// Per thread, the base and head hits of the query being evaluated.
+    static HIT_BUFFERS: std::cell::Cell<(Vec<Hit>, Vec<Hit>)> = const { std::cell::Cell::new((Vec::new(), Vec::new())) };
+}
+
+impl Engine<'_> {
+    /// Evaluates every planned query independently, in parallel; the outcomes come back in
+    /// plan order, so the report does not depend on the number of threads.
+    pub fn evaluate_all(&self, plan: &QueryPlan) -> Result<Vec<QueryOutcome>, PreviewError> {
+        (0..plan.queries.len())
+            .into_par_iter()
+            .map(|i| {
+                // Each thread reuses its two hit buffers: taken out for the query, put back after.
+                let (mut hb, mut hh) = HIT_BUFFERS.take();
+                let outcome = self.evaluate(plan, i, &mut hb, &mut hh);
+                HIT_BUFFERS.set((hb, hh));
+                outcome
+            })
+            .collect()
+    }
+
+    /// Hits in document order; only the top k is ever ranked.
+    fn run_side(
+        &self,
+        side: &Side,
+        query: &AnalyzedQuery,
+        hits: &mut Vec<Hit>,
+    ) -> Result<(), PreviewError> {
+        Ok(matches_into(
+            query,
+            side.keys,
+            side.stats,
+            &self.options.scoring,
+            self.weights,
+            hits,
+        )?)
+    }
+
+    fn top(&self, hits: &[Hit]) -> Vec<RankedDoc> {
+        top_hits(hits, self.options.top_k, self.order)
+            .iter()
+            .map(|h| RankedDoc {
+                id: self.ids[h.doc as usize].clone(),
+                score: h.score,
+            })
+            .collect()
+    }
+
+    fn doc_ref(&self, d: u32) -> DocRef {
+        DocRef {
+            id: self.ids[d as usize].clone(),
+            title: self.corpus.documents[d as usize].title.clone(),
+        }
+    }
+
+    fn evaluate(
+        &self,
+        plan: &QueryPlan,
+        i: usize,
+        hb: &mut Vec<Hit>,
+        hh: &mut Vec<Hit>,
+    ) -> Result<QueryOutcome, PreviewError> {
+        let planned = &plan.queries[i];
+        let text = planned.text.as_str();
+        let qb = self.base.analyzer.analyze_query(text);
+        let qh = self.head.analyzer.analyze_query(text);
+        let differs = !same_expansions(&qb, &qh);
+        let must = self.change.evaluate_all.is_some()
+            || differs
+            || touched_keys(&qb)
+                .chain(touched_keys(&qh))
+                .any(|k| self.change.affected_keys.contains(k));
+        let needs_ranking = planned.qid.is_some() || self.options.want_runs;
+        if !must {
+            let top_b = if needs_ranking {
+                self.run_side(&self.base, &qb, hb)?;
+                self.top(hb)
+            } else {
+                Vec::new()
+            };
+            return Ok(QueryOutcome {
+                evaluated: false,
+                label: Label::Unchanged,
+                top_h: top_b.clone(),
+                top_b,
+                change: None,
+            });
+        }
+        matches_both(
+            &SideQuery {
+                query: &qb,
+                source: self.base.keys,
+                stats: self.base.stats,
+            },
+            &SideQuery {
+                query: &qh,
+                source: self.head.keys,
+                stats: self.head.stats,
+            },
+            &self.options.scoring,
+            self.weights,
+            hb,
+            hh,
+        )?;
+        let (top_b, top_h) = (self.top(hb), self.top(hh));
+        let (gained, lost) = gained_and_lost(hb, hh);
+        let mut change = diff(
+            text,
+            planned.count,
+            planned.qid.as_ref(),
+            (hb.len(), hh.len()),
+            (gained.len(), lost.len()),
+            top_b.clone(),
+            top_h.clone(),
+            self.options,
+        )?;
+        let label = change.label;
+        let listed = label != Label::Unchanged && plan.in_log(i);
+        if listed {
+            let shown = |docs: Vec<u32>| {
+                first_by_place(docs, self.options.docs_shown, self.order)
+                    .into_iter()
+                    .map(|d| self.doc_ref(d))
+                    .collect()
+            };
+            change.gained = shown(gained);
+            change.lost = shown(lost);
+            change.causes = self.attribution.attribute(text, &qb, &qh);
+        }
+        Ok(QueryOutcome {
+            evaluated: true,
+            label,
+            top_b,
+            top_h,
+            change: listed.then_some(change),
+        })
+    }
+}
+
+/// The documents only `after` holds (gained) and only `before` holds (lost), both hit
+/// lists being in document order.
+fn gained_and_lost(before: &[Hit], after: &[Hit]) -> (Vec<u32>, Vec<u32>) {
+    let (mut gained, mut lost) = (Vec::new(), Vec::new());
+    let (mut i, mut j) = (0, 0);
+    while i < before.len() || j < after.len() {
+        match (before.get(i), after.get(j)) {
+            (Some(b), Some(a)) if b.doc == a.doc => {
+                i += 1;
+                j += 1;
+            }
+            (Some(b), Some(a)) if b.doc < a.doc => {
+                lost.push(b.doc);
+                i += 1;
+            }
+            (Some(b), None) => {
+                lost.push(b.doc);
+                i += 1;
+            }
+            (_, Some(a)) => {
+                gained.push(a.doc);
+                j += 1;
+            }
+            (None, None) => unreachable!("the loop runs while either list has hits"),
+        }
+    }
+    (gained, lost)
+}
+
+/// The first `n` documents in id order.
+fn first_by_place(mut docs: Vec<u32>, n: usize, order: &DocOrder) -> Vec<u32> {
+    if docs.len() > n && n > 0 {
+        docs.select_nth_unstable_by_key(n - 1, |&d| order.place(d));
+    }
+    docs.truncate(n);
+    docs.sort_unstable_by_key(|&d| order.place(d));
+    docs
+}
+
+#[allow(clippy::too_many_arguments)]
+fn diff(
+    text: &str,
+    searches: u64,
+    qid: Option<&String>,
+    (matches_before, matches_after): (usize, usize),
+    (gained, lost): (usize, usize),
+    top_before: Vec<RankedDoc>,
+    top_after: Vec<RankedDoc>,
+    options: &PreviewOptions,
+) -> Result<QueryChange, MetricsError> {
+    let same_top = top_before.len() == top_after.len()
+        && top_before.iter().zip(&top_after).all(|(x, y)| {
+            x.id == y.id && (x.score - y.score).abs() <= 1e-9 * x.score.abs().max(1.0)
+        });
+    let label = match (matches_before, matches_after) {
+        (0, n) if n > 0 => Label::Rescued,
+        (n, 0) if n > 0 => Label::Emptied,
+        _ if gained > lost => Label::Gained,
+        _ if lost > 0 => Label::Lost,
+        _ if !same_top => Label::Reordered,
+        _ => Label::Unchanged,
+    };
+    let names = |v: &[RankedDoc]| v.iter().map(|d| d.id.clone()).collect::<Vec<_>>();
+    let rbo = metrics::rbo_ext(&names(&top_before), &names(&top_after), options.rbo_p)?;
+    Ok(QueryChange {
+        query: text.to_string(),
+        qid: qid.cloned(),
+        searches,
+        label,
+        mixed: gained > 0 && lost > 0,
+        matches_before,
+        matches_after,
+        gained_count: gained,
+        lost_count: lost,
+        gained: Vec::new(),
+        lost: Vec::new(),
+        rbo,
+        top_before,
+        top_after,
+        causes: Vec::new(),
+    })
+}
