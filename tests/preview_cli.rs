@@ -140,6 +140,10 @@ fn text_output_and_run_files() {
     assert_eq!(cols[1], "Q0");
     assert_eq!(cols[5], "base");
     assert!(base.lines().any(|l| l.starts_with("q001 Q0 ")));
+    // Judged queries under their ids, others under ids from their text, sorted by id.
+    let qids: Vec<&str> = base.lines().map(|l| l.split(' ').next().unwrap()).collect();
+    assert!(qids.is_sorted());
+    assert!(qids.iter().any(|q| q.starts_with("log-")));
     assert!(
         std::fs::read_to_string(runs.join("head.run"))
             .unwrap()
@@ -171,4 +175,105 @@ fn bad_input_exits_2_with_the_line() {
         .unwrap();
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("q.tsv:2:"));
+}
+
+/// A preview over a small corpus and log written into `dir`, with run files.
+fn preview_with_runs(dir: &std::path::Path, corpus: &str, queries: &str) -> std::process::Output {
+    std::fs::write(dir.join("docs.jsonl"), corpus).unwrap();
+    std::fs::write(dir.join("q.tsv"), queries).unwrap();
+    Command::cargo_bin("lexdelta")
+        .unwrap()
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .args([
+            "preview",
+            "--base",
+            "rules",
+            "--head",
+            "demo-corpus/proposed",
+            "--no-cache",
+        ])
+        .arg("--corpus")
+        .arg(dir.join("docs.jsonl"))
+        .arg("--queries")
+        .arg(dir.join("q.tsv"))
+        .arg("--runs")
+        .arg(dir.join("runs"))
+        .output()
+        .unwrap()
+}
+
+#[test]
+fn run_files_name_unjudged_queries_by_their_text_and_sort_them() {
+    let docs = "{\"id\": \"a\", \"title\": \"night bus\", \"body\": \"night bus times\"}\n\
+                {\"id\": \"b\", \"title\": \"tram\", \"body\": \"tram and bus stops\"}\n";
+    let (one, two) = (tempfile::tempdir().unwrap(), tempfile::tempdir().unwrap());
+    // The same queries in two orders, with other traffic: the same run files.
+    let first = preview_with_runs(one.path(), docs, "bus\t5\ntram\t2\nnight bus\t1\n");
+    let second = preview_with_runs(two.path(), docs, "night bus\t9\nbus\t1\ntram\t1\n");
+    for out in [&first, &second] {
+        assert!(
+            out.status.success(),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+    }
+    let read = |dir: &tempfile::TempDir| {
+        std::fs::read_to_string(dir.path().join("runs/base.run")).unwrap()
+    };
+    let (a, b) = (read(&one), read(&two));
+    assert_eq!(a, b);
+    let qids: Vec<&str> = a.lines().map(|l| l.split(' ').next().unwrap()).collect();
+    assert!(
+        qids.iter().all(|q| q.starts_with("log-") && q.len() == 16),
+        "{a}"
+    );
+    assert!(qids.is_sorted(), "{a}");
+}
+
+#[test]
+fn an_id_the_run_format_cannot_carry_is_refused_before_anything_is_written() {
+    let dir = tempfile::tempdir().unwrap();
+    let docs = "{\"id\": \"kb 1\", \"title\": \"night bus\", \"body\": \"night bus times\"}\n";
+    let out = preview_with_runs(dir.path(), docs, "bus\t5\n");
+    assert_eq!(out.status.code(), Some(2));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(
+        err.contains("document id \"kb 1\" cannot be written to a TREC run file")
+            && err.contains("whitespace"),
+        "{err}"
+    );
+    assert!(!dir.path().join("runs").exists());
+}
+
+#[test]
+fn the_randomization_test_takes_its_trials_and_seed() {
+    let cache = tempfile::tempdir().unwrap();
+    let out = preview(
+        cache.path(),
+        &["--format", "json", "--trials", "500", "--seed", "7"],
+    );
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let report: Value = serde_json::from_slice(&out.stdout).unwrap();
+    let quality = &report["quality"];
+    assert!(
+        quality["test"]
+            .as_str()
+            .unwrap()
+            .contains("500 random assignments from seed 7")
+    );
+    let sampled: Vec<&Value> = quality["metrics"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|m| &m["method"])
+        .filter(|m| m["kind"] == "sampled")
+        .collect();
+    assert!(!sampled.is_empty());
+    assert!(sampled.iter().all(|m| m["trials"] == 500 && m["seed"] == 7));
+    let out = preview(cache.path(), &["--trials", "0"]);
+    assert_eq!(out.status.code(), Some(2));
 }

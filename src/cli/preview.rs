@@ -21,7 +21,7 @@ Examples:
   lexdelta preview --base rules --head demo-corpus/proposed \\
       --corpus demo-corpus/documents.jsonl --queries demo-corpus/queries.jsonl \\
       --judgments demo-corpus/judgments.qrels --judged-queries demo-corpus/judged-queries.tsv \\
-      --format json --runs runs/
+      --format json --runs runs/ --depth 100
   lexdelta preview ... --field title^3 --field body --sample 0.2 --match min:2 --ranking cosine
 
 The surface index is cached in .lexdelta-cache/ (see --cache); it is rebuilt only when the
@@ -50,12 +50,16 @@ pub struct Args {
     /// Gained and lost documents listed per query.
     #[arg(long, default_value_t = 5)]
     docs: usize,
-    /// Write base.run and head.run (TREC run format) into this directory.
+    /// Write base.run and head.run (TREC run format, every query ranked to --depth) into
+    /// this directory.
     #[arg(long, value_name = "DIR")]
     runs: Option<PathBuf>,
     /// Output format.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
+    /// JSON: leave out each changed query's top-k lists (the report says so in `omitted`).
+    #[arg(long)]
+    omit_top_lists: bool,
     /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
     #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
     color: ColorChoice,
@@ -118,7 +122,12 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
                 docs: args.docs,
             },
         ),
-        Format::Json => preview_json::render(&outcome.report)?,
+        Format::Json => preview_json::render(
+            &outcome.report,
+            preview_json::Omit {
+                top_lists: args.omit_top_lists,
+            },
+        )?,
     };
     print(&rendered)?;
     Ok(ExitCode::SUCCESS)

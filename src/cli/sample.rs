@@ -11,7 +11,7 @@ use lexdelta::corpus::{
 };
 use lexdelta::index::Progress;
 use lexdelta::metrics::{self, RandomizationTest};
-use lexdelta::preview::{JudgedSet, MatchMode, PreviewOptions, Ranking, Scoring};
+use lexdelta::preview::{self, JudgedSet, MatchMode, PreviewOptions, Ranking, Scoring};
 
 use super::CliError;
 
@@ -46,9 +46,9 @@ pub struct SampleArgs {
     /// Keep a random sample of the documents: a count (1000) or a fraction (0.1).
     #[arg(long, value_name = "N")]
     pub sample: Option<String>,
-    /// Seed of the sample.
+    /// Seed of the sample's random draw.
     #[arg(long, default_value_t = 42)]
-    pub seed: u64,
+    pub sample_seed: u64,
     /// Which documents match: all clauses, any clause, or at least N (`min:N`).
     #[arg(long = "match", value_name = "MODE", default_value = "all")]
     pub mode: String,
@@ -61,9 +61,18 @@ pub struct SampleArgs {
     /// BM25 b.
     #[arg(long, default_value_t = 0.75)]
     pub b: f64,
-    /// Rankings are cut at this depth; metrics and RBO use it.
+    /// Documents shown per ranking, and compared by RBO and the outcome labels.
     #[arg(long, default_value_t = 10)]
     pub top_k: usize,
+    /// How deep rankings are evaluated for judged metrics and written to run files.
+    #[arg(long, default_value_t = preview::DEFAULT_DEPTH)]
+    pub depth: usize,
+    /// Random sign assignments drawn by the paired randomization test.
+    #[arg(long, default_value_t = RandomizationTest::default().trials)]
+    pub trials: usize,
+    /// Seed of the paired randomization test.
+    #[arg(long, default_value_t = RandomizationTest::default().seed)]
+    pub seed: u64,
     /// RBO persistence p, between 0 and 1.
     #[arg(long, default_value_t = metrics::DEFAULT_RBO_P)]
     pub rbo_p: f64,
@@ -112,21 +121,6 @@ impl SampleArgs {
             .mode
             .parse()
             .map_err(|e| CliError(format!("--match: {e}"), false))?;
-        if !(self.rbo_p > 0.0 && self.rbo_p < 1.0) {
-            return Err(CliError(
-                format!("--rbo-p {}: must be between 0 and 1", self.rbo_p),
-                false,
-            ));
-        }
-        if self.top_k == 0 {
-            return Err(CliError("--top-k must be at least 1".into(), false));
-        }
-        if !(self.k1 >= 0.0 && (0.0..=1.0).contains(&self.b)) {
-            return Err(CliError(
-                "--k1 must be ≥ 0 and --b between 0 and 1".into(),
-                false,
-            ));
-        }
         let fields = self
             .fields
             .iter()
@@ -139,8 +133,28 @@ impl SampleArgs {
             title_field: self.title_field.clone(),
             fields,
             sample: self.sample.as_deref().map(parse_sample).transpose()?,
-            seed: self.seed,
+            seed: self.sample_seed,
         };
+        let options = PreviewOptions {
+            scoring: Scoring {
+                ranking: self.ranking,
+                k1: self.k1,
+                b: self.b,
+                mode,
+            },
+            top_k: self.top_k,
+            depth: self.depth,
+            rbo_p: self.rbo_p,
+            docs_shown: docs_shown.max(1),
+            cache_dir: (!self.no_cache).then(|| self.cache.clone()),
+            want_runs,
+            test: RandomizationTest {
+                trials: self.trials,
+                seed: self.seed,
+                ..RandomizationTest::default()
+            },
+        };
+        options.validate()?;
         let (corpus_path, queries_path) = match (&self.corpus, &self.queries) {
             (Some(c), Some(q)) => (c.clone(), q.clone()),
             _ => (PathBuf::from(DEMO_CORPUS), PathBuf::from(DEMO_QUERIES)),
@@ -172,20 +186,6 @@ impl SampleArgs {
                     texts: metrics::read_queries(texts_path)?,
                 })
             }
-        };
-        let options = PreviewOptions {
-            scoring: Scoring {
-                ranking: self.ranking,
-                k1: self.k1,
-                b: self.b,
-                mode,
-            },
-            top_k: self.top_k,
-            rbo_p: self.rbo_p,
-            docs_shown: docs_shown.max(1),
-            cache_dir: (!self.no_cache).then(|| self.cache.clone()),
-            want_runs,
-            test: RandomizationTest::default(),
         };
         Ok(Loaded {
             corpus,

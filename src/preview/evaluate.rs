@@ -18,8 +18,12 @@ use crate::metrics::{self, MetricsError};
 pub(super) struct QueryOutcome {
     pub evaluated: bool,
     pub label: Label,
-    pub top_b: Vec<RankedDoc>,
-    pub top_h: Vec<RankedDoc>,
+    /// The matches and the top k are the same on both sides, but scores moved.
+    pub rescored: bool,
+    /// Both sides' rankings to the evaluation depth, for judged queries and run files
+    /// (empty otherwise); `None` for the head when it is the base's.
+    pub ranked_b: Vec<Hit>,
+    pub ranked_h: Option<Vec<Hit>>,
     /// Listed in the report: a changed query of the log.
     pub change: Option<QueryChange>,
 }
@@ -75,8 +79,30 @@ impl Engine<'_> {
         )?)
     }
 
-    fn top(&self, hits: &[Hit]) -> Vec<RankedDoc> {
-        top_hits(hits, self.options.top_k, self.order)
+    /// The ranking to the evaluation depth (at least the top k), or `None` when nobody
+    /// reads it.
+    fn ranked(&self, hits: &[Hit], needed: bool) -> Option<Vec<Hit>> {
+        let deep = self.options.depth.max(self.options.top_k);
+        needed.then(|| top_hits(hits, deep, self.order))
+    }
+
+    /// A ranking cut at the evaluation depth (it may have been ranked deeper, to show the
+    /// top k): what judged metrics and run files read.
+    fn to_depth(&self, ranked: Option<Vec<Hit>>) -> Option<Vec<Hit>> {
+        ranked.map(|mut r| {
+            r.truncate(self.options.depth);
+            r
+        })
+    }
+
+    /// The top k shown: a prefix of the deep ranking when there is one.
+    fn top(&self, hits: &[Hit], ranked: Option<&Vec<Hit>>) -> Vec<RankedDoc> {
+        let k = self.options.top_k;
+        let shown = match ranked {
+            Some(r) => r[..k.min(r.len())].to_vec(),
+            None => top_hits(hits, k, self.order),
+        };
+        shown
             .iter()
             .map(|h| RankedDoc {
                 id: self.ids[h.doc as usize].clone(),
@@ -109,19 +135,19 @@ impl Engine<'_> {
             || touched_keys(&qb)
                 .chain(touched_keys(&qh))
                 .any(|k| self.change.affected_keys.contains(k));
-        let needs_ranking = planned.qid.is_some() || self.options.want_runs;
+        let needs_ranking = !planned.qids.is_empty() || self.options.want_runs;
         if !must {
-            let top_b = if needs_ranking {
+            if needs_ranking {
                 self.run_side(&self.base, &qb, hb)?;
-                self.top(hb)
-            } else {
-                Vec::new()
-            };
+            }
             return Ok(QueryOutcome {
                 evaluated: false,
                 label: Label::Unchanged,
-                top_h: top_b.clone(),
-                top_b,
+                rescored: false,
+                ranked_b: self
+                    .to_depth(self.ranked(hb, needs_ranking))
+                    .unwrap_or_default(),
+                ranked_h: None,
                 change: None,
             });
         }
@@ -141,19 +167,28 @@ impl Engine<'_> {
             hb,
             hh,
         )?;
-        let (top_b, top_h) = (self.top(hb), self.top(hh));
+        let (ranked_b, ranked_h) = (
+            self.ranked(hb, needs_ranking),
+            self.ranked(hh, needs_ranking),
+        );
+        let (top_b, top_h) = (
+            self.top(hb, ranked_b.as_ref()),
+            self.top(hh, ranked_h.as_ref()),
+        );
+        let (ranked_b, ranked_h) = (self.to_depth(ranked_b), self.to_depth(ranked_h));
         let (gained, lost) = gained_and_lost(hb, hh);
         let mut change = diff(
             text,
             planned.count,
-            planned.qid.as_ref(),
+            planned.qids.first(),
             (hb.len(), hh.len()),
             (gained.len(), lost.len()),
-            top_b.clone(),
-            top_h.clone(),
+            top_b,
+            top_h,
             self.options,
         )?;
         let label = change.label;
+        let rescored = label == Label::Unchanged && scores_moved(&change);
         let listed = label != Label::Unchanged && plan.in_log(i);
         if listed {
             let shown = |docs: Vec<u32>| {
@@ -169,11 +204,22 @@ impl Engine<'_> {
         Ok(QueryOutcome {
             evaluated: true,
             label,
-            top_b,
-            top_h,
+            rescored,
+            ranked_b: ranked_b.unwrap_or_default(),
+            ranked_h,
             change: listed.then_some(change),
         })
     }
+}
+
+/// Whether an unchanged query's scores moved: the same top k in the same order, with a
+/// score that differs beyond rounding.
+fn scores_moved(change: &QueryChange) -> bool {
+    change
+        .top_before
+        .iter()
+        .zip(&change.top_after)
+        .any(|(x, y)| (x.score - y.score).abs() > 1e-9 * x.score.abs().max(1.0))
 }
 
 /// The documents only `after` holds (gained) and only `before` holds (lost), both hit
@@ -226,10 +272,9 @@ fn diff(
     top_after: Vec<RankedDoc>,
     options: &PreviewOptions,
 ) -> Result<QueryChange, MetricsError> {
+    // The top k changed when its documents or their order did; scores alone do not count.
     let same_top = top_before.len() == top_after.len()
-        && top_before.iter().zip(&top_after).all(|(x, y)| {
-            x.id == y.id && (x.score - y.score).abs() <= 1e-9 * x.score.abs().max(1.0)
-        });
+        && top_before.iter().zip(&top_after).all(|(x, y)| x.id == y.id);
     let label = match (matches_before, matches_after) {
         (0, n) if n > 0 => Label::Rescued,
         (n, 0) if n > 0 => Label::Emptied,

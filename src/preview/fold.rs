@@ -5,7 +5,8 @@ use rustc_hash::FxHashMap;
 
 use super::evaluate::QueryOutcome;
 use super::plan::QueryPlan;
-use super::report::{Label, LabelCount, QueryChange, RankedDoc, Summary};
+use super::report::{Label, LabelCount, QueryChange, QueryCount, RankedDoc, Summary};
+use super::retrieve::Hit;
 use super::runs::{RunQuery, Runs};
 
 /// A judged query's ranking on both sides: (judged id, base, head).
@@ -25,14 +26,27 @@ pub(super) struct Folded {
 pub(super) fn fold(
     plan: &QueryPlan,
     outcomes: Vec<QueryOutcome>,
+    ids: &[String],
     searches: u64,
     want_runs: bool,
 ) -> Folded {
     let mut changes = Vec::new();
     let mut labels: FxHashMap<Label, (usize, u64)> = FxHashMap::default();
+    let mut rescored = QueryCount::default();
     let mut evaluated = 0;
     let mut runs = Runs::default();
     let mut judged = Vec::new();
+    let names = |hits: &[Hit]| -> Vec<String> {
+        hits.iter().map(|h| ids[h.doc as usize].clone()).collect()
+    };
+    let ranked = |hits: &[Hit]| -> Vec<RankedDoc> {
+        hits.iter()
+            .map(|h| RankedDoc {
+                id: ids[h.doc as usize].clone(),
+                score: h.score,
+            })
+            .collect()
+    };
     for (i, outcome) in outcomes.into_iter().enumerate() {
         let planned = &plan.queries[i];
         evaluated += usize::from(outcome.evaluated);
@@ -41,21 +55,26 @@ pub(super) fn fold(
             let slot = labels.entry(outcome.label).or_default();
             slot.0 += 1;
             slot.1 += planned.count;
+            if outcome.rescored {
+                rescored.queries += 1;
+                rescored.searches += planned.count;
+            }
         }
-        if let Some(qid) = &planned.qid {
-            let names = |v: &[RankedDoc]| v.iter().map(|d| d.id.clone()).collect();
-            judged.push((qid.clone(), names(&outcome.top_b), names(&outcome.top_h)));
+        let ranked_h = outcome.ranked_h.as_ref().unwrap_or(&outcome.ranked_b);
+        for qid in &planned.qids {
+            judged.push((qid.clone(), names(&outcome.ranked_b), names(ranked_h)));
         }
         if want_runs {
-            let qid = planned.qid.clone().unwrap_or_else(|| format!("q{}", i + 1));
-            runs.base.push(RunQuery {
-                qid: qid.clone(),
-                docs: outcome.top_b,
-            });
-            runs.head.push(RunQuery {
-                qid,
-                docs: outcome.top_h,
-            });
+            for qid in plan.run_ids(i) {
+                runs.base.push(RunQuery {
+                    qid: qid.clone(),
+                    docs: ranked(&outcome.ranked_b),
+                });
+                runs.head.push(RunQuery {
+                    qid,
+                    docs: ranked(ranked_h),
+                });
+            }
         }
     }
     changes.sort_by(|a, b| {
@@ -63,16 +82,24 @@ pub(super) fn fold(
             .cmp(&a.searches)
             .then_with(|| a.query.cmp(&b.query))
     });
+    // Run files list queries by id, as evaluators do: the same file whatever the log order.
+    runs.base.sort_by(|a, b| a.qid.cmp(&b.qid));
+    runs.head.sort_by(|a, b| a.qid.cmp(&b.qid));
     Folded {
         changes,
-        summary: summary(plan.log_len, searches, &labels),
+        summary: summary(plan.log_len, searches, &labels, rescored),
         evaluated,
         runs: want_runs.then_some(runs),
         judged,
     }
 }
 
-fn summary(queries: usize, searches: u64, labels: &FxHashMap<Label, (usize, u64)>) -> Summary {
+fn summary(
+    queries: usize,
+    searches: u64,
+    labels: &FxHashMap<Label, (usize, u64)>,
+    rescored: QueryCount,
+) -> Summary {
     let affected: u64 = labels
         .iter()
         .filter(|(l, _)| **l != Label::Unchanged)
@@ -98,5 +125,6 @@ fn summary(queries: usize, searches: u64, labels: &FxHashMap<Label, (usize, u64)
                 }
             })
             .collect(),
+        rescored,
     }
 }

@@ -25,7 +25,7 @@ pub(super) fn quality(
             judgments.insert(qid, doc, grade);
         }
     }
-    let config = EvalConfig::new(metric_list(options.top_k));
+    let config = EvalConfig::new(metric_list(options.depth));
     let before = metrics::evaluate(
         rankings.iter().map(|r| (r.0.as_str(), r.1.as_slice())),
         &judgments,
@@ -60,13 +60,24 @@ pub(super) fn quality(
                 .collect(),
         })
         .collect();
+    let test = &options.test;
     Ok(Quality {
         judged_queries: before.queries.len(),
+        averaging: format!(
+            "each mean is over the {} judged queries with a text; a judged query that finds \
+             nothing, or that has no relevant judgment, counts with 0 (as trec_eval -c \
+             counts it); rankings are evaluated to depth {}",
+            before.queries.len(),
+            options.depth
+        ),
         without_text,
-        test: "Fisher's randomization test, paired, two-sided (Smucker, Allan & Carterette 2007, \
-               \"A Comparison of Statistical Significance Tests for Information Retrieval \
-               Evaluation\")"
-            .into(),
+        test: format!(
+            "Fisher's randomization test, paired, two-sided (Smucker, Allan & Carterette 2007, \
+             \"A Comparison of Statistical Significance Tests for Information Retrieval \
+             Evaluation\"): every sign assignment when at most {} queries differ, otherwise \
+             {} random assignments from seed {}",
+            test.exact_limit, test.trials, test.seed
+        ),
         metrics: cmp
             .metrics
             .iter()

@@ -41,7 +41,18 @@
 //! vector is binary over clauses, its norm left out as it is the same for every document);
 //! the score is Σ_f weight_f · field score. A zero norm gives 0.
 //!
-//! Rankings are sorted by score, ties broken by document id, and cut at top-k.
+//! Rankings are sorted by score, ties broken as trec_eval breaks them (the later document
+//! id first), so the rankings shown, the run files and the metrics agree with trec_eval
+//! reading those run files. The top k is shown, compared by RBO and read by the outcome
+//! labels; rankings are evaluated for judged metrics, and written to run files, to the
+//! depth ([`PreviewOptions::depth`], 1000 by default).
+//!
+//! # Steps
+//!
+//! [`run_opened`] keys every surface form on both sides and reduces the change
+//! (`views`), plans the queries (`plan`), evaluates them in parallel (`evaluate`), folds
+//! the outcomes in plan order into the report, the run files and the judged rankings
+//! (`fold`), and scores the judged rankings (`judge`).
 //!
 //! # Evaluation cost
 //!
@@ -119,10 +130,16 @@ pub struct PreviewInput<'a> {
     pub judged: Option<JudgedSet>,
 }
 
+/// How deep rankings are evaluated by default: trec_eval's own default depth.
+pub const DEFAULT_DEPTH: usize = 1000;
+
 #[derive(Clone, Debug)]
 pub struct PreviewOptions {
     pub scoring: Scoring,
+    /// Documents shown per ranking, and compared by RBO and the outcome labels.
     pub top_k: usize,
+    /// How deep rankings are evaluated for judged metrics and written to run files.
+    pub depth: usize,
     pub rbo_p: f64,
     /// Gained and lost documents listed per query.
     pub docs_shown: usize,
@@ -138,12 +155,50 @@ impl Default for PreviewOptions {
         PreviewOptions {
             scoring: Scoring::default(),
             top_k: 10,
+            depth: DEFAULT_DEPTH,
             rbo_p: metrics::DEFAULT_RBO_P,
             docs_shown: 10,
             cache_dir: None,
             want_runs: false,
             test: RandomizationTest::default(),
         }
+    }
+}
+
+impl PreviewOptions {
+    /// Checks every setting: cut-offs of at least 1, finite BM25 parameters in range, an
+    /// RBO persistence strictly between 0 and 1, a valid randomization test.
+    pub fn validate(&self) -> Result<(), PreviewError> {
+        let bad = |name: &'static str, message: String| {
+            Err(PreviewError::Metrics(MetricsError::InvalidParameter {
+                name,
+                message,
+            }))
+        };
+        if self.top_k == 0 {
+            return bad("top k", "must be at least 1".into());
+        }
+        if self.depth == 0 {
+            return bad("evaluation depth", "must be at least 1".into());
+        }
+        let (k1, b) = (self.scoring.k1, self.scoring.b);
+        if !(k1.is_finite() && k1 >= 0.0) {
+            return bad(
+                "BM25 k1",
+                format!("{k1} is not a finite number of at least 0"),
+            );
+        }
+        if !(0.0..=1.0).contains(&b) {
+            return bad("BM25 b", format!("{b} is not between 0 and 1"));
+        }
+        if !(self.rbo_p > 0.0 && self.rbo_p < 1.0) {
+            return bad(
+                "RBO p",
+                format!("{} is not strictly between 0 and 1", self.rbo_p),
+            );
+        }
+        self.test.validate()?;
+        Ok(())
     }
 }
 
@@ -158,17 +213,38 @@ pub enum PreviewError {
     Index(#[from] IndexError),
     #[error(transparent)]
     Metrics(#[from] MetricsError),
+    /// An id that the TREC run format cannot carry.
+    #[error(
+        "{what} id {id:?} cannot be written to a TREC run file: {why}; give it an id without \
+         spaces, tabs or line breaks, or write no run files"
+    )]
+    RunId {
+        what: &'static str,
+        id: String,
+        why: &'static str,
+    },
+    /// Two queries that would share one id in the run files.
+    #[error(
+        "queries {first:?} and {second:?} would both be written to the run files as {id:?}; \
+         give one of them a judged query id"
+    )]
+    RunIdClash {
+        id: String,
+        first: String,
+        second: String,
+    },
 }
 
-/// The evaluation metrics at cut-off k.
-pub fn metric_list(k: usize) -> Vec<Metric> {
+/// The judged metrics of a preview whose rankings are evaluated to `depth`: the standard
+/// early-precision cut-off of 10 (P@10, nDCG@10) and the whole evaluated ranking (R, RR
+/// and AP at the depth), each named with its cut-off.
+pub fn metric_list(depth: usize) -> Vec<Metric> {
     vec![
-        Metric::Precision(k),
-        Metric::Recall(k),
-        Metric::F1(k),
-        Metric::ReciprocalRank(None),
-        Metric::AveragePrecision(None),
-        Metric::Ndcg(Some(k)),
+        Metric::Precision(10),
+        Metric::Recall(depth),
+        Metric::ReciprocalRank(Some(depth)),
+        Metric::AveragePrecision(Some(depth)),
+        Metric::Ndcg(Some(10)),
     ]
 }
 
@@ -263,6 +339,7 @@ pub fn run_opened(
     indexes: OpenedIndexes,
     options: &PreviewOptions,
 ) -> Result<PreviewOutcome, PreviewError> {
+    options.validate()?;
     let corpus = input.corpus;
     let (base_a, head_a) = (&*input.base, &*input.head);
     let base_postings = &indexes.base.postings;
@@ -287,6 +364,9 @@ pub fn run_opened(
     let order = id_order(base_postings, &ids)?;
     let weights: Vec<f64> = corpus.fields.iter().map(|f| f.weight as f64).collect();
     let plan = QueryPlan::new(input.queries, input.judged.as_ref());
+    if options.want_runs {
+        runs::check_ids(&ids, &plan)?;
+    }
     let engine = Engine {
         base,
         head,
@@ -308,6 +388,7 @@ pub fn run_opened(
     let folded = fold::fold(
         &plan,
         outcomes,
+        &ids,
         input.queries.total_searches(),
         options.want_runs,
     );
@@ -334,6 +415,7 @@ pub fn run_opened(
             scoring: options.scoring,
             ranking_definition: options.scoring.definition(),
             top_k: options.top_k,
+            depth: options.depth,
             rbo_p: options.rbo_p,
         },
         evaluation: EvaluationInfo {

@@ -4,6 +4,7 @@
 use rustc_hash::{FxHashMap, FxHashSet};
 
 use super::JudgedSet;
+use super::runs::log_query_id;
 use crate::corpus::QueryLog;
 
 /// One query to run.
@@ -11,8 +12,8 @@ pub(super) struct PlannedQuery {
     pub text: String,
     /// Searches in the log (0 for a judged query the log lacks).
     pub count: u64,
-    /// The judged query id, when the query is judged.
-    pub qid: Option<String>,
+    /// The judged query ids of this text (usually none or one), sorted.
+    pub qids: Vec<String>,
 }
 
 /// The queries of a preview.
@@ -25,15 +26,20 @@ pub(super) struct QueryPlan {
 impl QueryPlan {
     pub fn new(log: &QueryLog, judged: Option<&JudgedSet>) -> QueryPlan {
         // Judged query texts → ids; judged texts missing from the log are run too.
-        let mut qid_of: FxHashMap<String, String> = FxHashMap::default();
+        let mut qid_of: FxHashMap<String, Vec<String>> = FxHashMap::default();
         if let Some(j) = judged {
             for q in j.texts.iter() {
                 if j.judgments.contains_query(&q.id) {
                     qid_of
                         .entry(q.text.trim().to_string())
-                        .or_insert(q.id.clone());
+                        .or_default()
+                        .push(q.id.clone());
                 }
             }
+        }
+        for ids in qid_of.values_mut() {
+            ids.sort();
+            ids.dedup();
         }
         let in_log: FxHashSet<&str> = log.queries.iter().map(|q| q.query.as_str()).collect();
         let mut extra: Vec<&String> = qid_of
@@ -47,16 +53,27 @@ impl QueryPlan {
             .map(|q| PlannedQuery {
                 text: q.query.clone(),
                 count: q.count,
-                qid: qid_of.get(&q.query).cloned(),
+                qids: qid_of.get(&q.query).cloned().unwrap_or_default(),
             })
             .collect();
         let log_len = queries.len();
         queries.extend(extra.into_iter().map(|t| PlannedQuery {
             text: t.clone(),
             count: 0,
-            qid: qid_of.get(t).cloned(),
+            qids: qid_of.get(t).cloned().unwrap_or_default(),
         }));
         QueryPlan { queries, log_len }
+    }
+
+    /// The ids query `i` is written under in run files: its judged ids, or else an id
+    /// derived from its text ([`log_query_id`]).
+    pub fn run_ids(&self, i: usize) -> Vec<String> {
+        let q = &self.queries[i];
+        if q.qids.is_empty() {
+            vec![log_query_id(&q.text)]
+        } else {
+            q.qids.clone()
+        }
     }
 
     /// Whether query `i` is from the log.

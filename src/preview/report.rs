@@ -24,8 +24,11 @@ pub enum Label {
     Gained,
     /// Finds fewer documents (or at least as many lost as gained).
     Lost,
-    /// The same documents, in a different top-k order or with different scores.
+    /// The same documents, but the top k holds other documents or the same in another
+    /// order.
     Reordered,
+    /// The same documents and the same top k in the same order (scores may have moved:
+    /// [`Summary::rescored`] counts those).
     Unchanged,
 }
 
@@ -93,7 +96,10 @@ pub struct Settings {
     #[serde(flatten)]
     pub scoring: Scoring,
     pub ranking_definition: String,
+    /// Documents shown per ranking, compared by RBO and the outcome labels.
     pub top_k: usize,
+    /// How deep rankings are evaluated for judged metrics and written to run files.
+    pub depth: usize,
     pub rbo_p: f64,
 }
 
@@ -121,14 +127,24 @@ pub struct LabelCount {
     pub searches: u64,
 }
 
+/// A number of queries and their searches.
+#[derive(Clone, Copy, Debug, Default, Serialize)]
+pub struct QueryCount {
+    pub queries: usize,
+    pub searches: u64,
+}
+
 #[derive(Clone, Debug, Serialize)]
 pub struct Summary {
     pub queries: usize,
     pub searches: u64,
-    /// Searches whose query is not unchanged.
+    /// Searches whose query's matches or top k changed (any label but `unchanged`).
     pub affected_searches: u64,
     pub affected_share: f64,
     pub labels: Vec<LabelCount>,
+    /// Unchanged queries whose scores moved: the same matches and the same top k in the
+    /// same order. Not affected.
+    pub rescored: QueryCount,
 }
 
 #[derive(Clone, Debug, Serialize)]
@@ -225,6 +241,8 @@ pub struct JudgedQuery {
 pub struct Quality {
     /// Judged queries with a text, evaluated.
     pub judged_queries: usize,
+    /// Which queries the means are over, and how those that find nothing count.
+    pub averaging: String,
     /// Judged query ids without a text (not evaluated).
     pub without_text: Vec<String>,
     /// The test named, with its source.

@@ -140,8 +140,8 @@ pub fn render(report: &PreviewReport, style: Style, limits: Limits) -> String {
     };
     let _ = writeln!(
         out,
-        "  scoring  {ranking}, match {}, top {}, RBO p={}",
-        s.scoring.mode, s.top_k, s.rbo_p
+        "  scoring  {ranking}, match {}, top {} shown (RBO p={}), rankings evaluated to depth {}",
+        s.scoring.mode, s.top_k, s.rbo_p, s.depth
     );
     let e = &report.evaluation;
     let _ = writeln!(
@@ -173,6 +173,18 @@ pub fn render(report: &PreviewReport, style: Style, limits: Limits) -> String {
             thousands(l.searches)
         );
     }
+    if sum.rescored.queries > 0 {
+        let _ = writeln!(
+            out,
+            "  {}",
+            style.dim(&format!(
+                "of the unchanged, {} queries ({} searches) keep their matches and top {} but their scores moved",
+                thousands(sum.rescored.queries as u64),
+                thousands(sum.rescored.searches),
+                s.top_k
+            ))
+        );
+    }
     out.push('\n');
 
     if !report.queries.is_empty() {
@@ -192,20 +204,21 @@ pub fn render(report: &PreviewReport, style: Style, limits: Limits) -> String {
     if let Some(quality) = &report.quality {
         let _ = writeln!(
             out,
-            "{} ({} judged queries; p from {})",
+            "{} ({} judged queries)",
             style.bold("judged quality"),
             quality.judged_queries,
-            quality.test
         );
+        let _ = writeln!(out, "  {}", style.dim(&quality.averaging));
+        let _ = writeln!(out, "  {}", style.dim(&format!("p from {}", quality.test)));
         let _ = writeln!(
             out,
-            "  {:<8} {:>8} {:>8} {:>9} {:>6} {:>6} {:>8}",
+            "  {:<9} {:>8} {:>8} {:>9} {:>6} {:>6} {:>8}",
             "metric", "before", "after", "diff", "up", "down", "p"
         );
         for m in &quality.metrics {
             let _ = writeln!(
                 out,
-                "  {:<8} {:>8.4} {:>8.4} {:>+9.4} {:>6} {:>6} {:>8.4}",
+                "  {:<9} {:>8.4} {:>8.4} {:>+9.4} {:>6} {:>6} {:>8.4}",
                 m.metric.to_string(),
                 m.before,
                 m.after,

@@ -85,9 +85,12 @@ fn traffic_chart(out: &mut String, r: &ReviewReport) {
     let s = &r.preview.summary;
     let _ = writeln!(
         out,
-        "<h2>Affected traffic</h2><p>{:.1}% of {} searches are affected.</p>",
+        "<h2>Affected traffic</h2><p>{:.1}% of {} searches are affected (their matches or top \
+         {} changed); {} more keep both, but their scores moved.</p>",
         s.affected_share * 100.0,
-        s.searches
+        s.searches,
+        r.preview.settings.top_k,
+        s.rescored.searches
     );
     let max = s
         .labels

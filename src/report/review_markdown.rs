@@ -88,6 +88,14 @@ fn summary(out: &mut String, r: &ReviewReport) {
             );
         }
     }
+    if s.rescored.queries > 0 {
+        let _ = writeln!(
+            out,
+            "\nNot counted as affected: {} unchanged queries ({} searches) keep their matches and \
+             top {} in the same order, but their scores moved.",
+            s.rescored.queries, s.rescored.searches, r.preview.settings.top_k
+        );
+    }
     out.push('\n');
 }
 

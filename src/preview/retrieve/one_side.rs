@@ -4,6 +4,8 @@
 use super::super::keys::KeySource;
 use super::candidates::{ALL_SCRATCH, AllScratch, filter_by_every_clause, score_documents};
 use super::clauses::{clause_lists, clause_tf, needs_every_clause};
+#[cfg(doc)]
+use super::top_hits;
 use super::{DocOrder, FieldScore, Hit, MatchMode, Scoring, Stats, rank};
 use crate::analysis::AnalyzedQuery;
 use crate::index::IndexError;
@@ -79,7 +81,7 @@ thread_local! {
     pub(super) static SCRATCH: std::cell::RefCell<Scratch> = std::cell::RefCell::default();
 }
 
-/// Every document matching `query`, best first (ties by document id).
+/// Every document matching `query`, best first (ties as [`top_hits`] breaks them).
 pub fn retrieve(
     query: &AnalyzedQuery,
     source: &dyn KeySource,
