@@ -130,7 +130,22 @@ fn text_output_and_run_files() {
         String::from_utf8_lossy(&out.stderr)
     );
     let text = String::from_utf8(out.stdout).unwrap();
-    assert!(text.contains("changed queries (3 of"), "{text}");
+    // Every emptied, lost or judged-worse query is listed whatever the limit, first; then
+    // the limit's worth of the rest.
+    assert!(
+        text.contains("changed queries (16 of 135: every emptied, lost or judged-worse query (13 queries), then the most searched)"),
+        "{text}"
+    );
+    let listed: Vec<&str> = text
+        .lines()
+        .filter(|l| l.starts_with("  ") && l.contains("] "))
+        .collect();
+    assert!(listed[0].starts_with("  transitions  [emptied"), "{text}");
+    assert!(listed[1].starts_with("  transit  [lost]"), "{text}");
+    assert!(
+        listed[2].starts_with("  access pass  [gained, nDCG@10 0.7110 -> 0.1143]"),
+        "{text}"
+    );
     assert!(text.contains("nDCG@10"));
     assert!(text.contains("evidence, not proof"));
     let base = std::fs::read_to_string(runs.join("base.run")).unwrap();

@@ -301,5 +301,6 @@ fn diff(
         top_before,
         top_after,
         causes: Vec::new(),
+        judged: None,
     })
 }

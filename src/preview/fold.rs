@@ -77,11 +77,7 @@ pub(super) fn fold(
             }
         }
     }
-    changes.sort_by(|a, b| {
-        b.searches
-            .cmp(&a.searches)
-            .then_with(|| a.query.cmp(&b.query))
-    });
+    worst_first(&mut changes);
     // Run files list queries by id, as evaluators do: the same file whatever the log order.
     runs.base.sort_by(|a, b| a.qid.cmp(&b.qid));
     runs.head.sort_by(|a, b| a.qid.cmp(&b.qid));
@@ -127,4 +123,21 @@ fn summary(
             .collect(),
         rescored,
     }
+}
+
+/// Orders changed queries worst news first: emptied, lost and judged-worse queries ahead of
+/// the rest whatever their traffic (judged-worse ones by how far their quality fell), then
+/// by searches, then by text.
+pub(super) fn worst_first(changes: &mut [QueryChange]) {
+    let drop = |q: &QueryChange| match (&q.judged, q.urgency()) {
+        (Some(j), 2) => j.before - j.after,
+        _ => 0.0,
+    };
+    changes.sort_by(|a, b| {
+        a.urgency()
+            .cmp(&b.urgency())
+            .then_with(|| drop(b).total_cmp(&drop(a)))
+            .then_with(|| b.searches.cmp(&a.searches))
+            .then_with(|| a.query.cmp(&b.query))
+    });
 }

@@ -4,9 +4,9 @@
 use rustc_hash::{FxHashMap, FxHashSet};
 
 use super::fold::JudgedRanking;
-use super::report::{JudgedQuery, MetricRow, Quality};
+use super::report::{JudgedMove, JudgedQuery, MetricRow, Quality, QueryChange};
 use super::{JudgedSet, PreviewOptions, metric_list};
-use crate::metrics::{self, EvalConfig, Judgments, MetricsError};
+use crate::metrics::{self, EvalConfig, Judgments, Metric, MetricsError};
 
 pub(super) fn quality(
     judged: &JudgedSet,
@@ -94,4 +94,30 @@ pub(super) fn quality(
             .collect(),
         per_query,
     })
+}
+
+/// Gives every changed judged query its nDCG@10 on both sides.
+pub(super) fn mark_judged(changes: &mut [QueryChange], quality: &Quality) {
+    let Some(at) = quality
+        .metrics
+        .iter()
+        .position(|m| matches!(m.metric, Metric::Ndcg(_)))
+    else {
+        return;
+    };
+    let metric = quality.metrics[at].metric;
+    let by_qid: FxHashMap<&str, &JudgedQuery> = quality
+        .per_query
+        .iter()
+        .map(|q| (q.qid.as_str(), q))
+        .collect();
+    for change in changes {
+        if let Some(q) = change.qid.as_deref().and_then(|id| by_qid.get(id)) {
+            change.judged = Some(JudgedMove {
+                metric,
+                before: q.before[at],
+                after: q.after[at],
+            });
+        }
+    }
 }

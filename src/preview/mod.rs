@@ -397,6 +397,11 @@ pub fn run_opened(
         .as_ref()
         .map(|j| judge::quality(j, &folded.judged, options))
         .transpose()?;
+    let mut changes = folded.changes;
+    if let Some(quality) = &quality {
+        judge::mark_judged(&mut changes, quality);
+        fold::worst_first(&mut changes);
+    }
 
     let change = &keyed.change;
     let report = PreviewReport {
@@ -432,7 +437,7 @@ pub fn run_opened(
             skipped: plan.queries.len() - folded.evaluated,
         },
         summary: folded.summary,
-        queries: folded.changes,
+        queries: changes,
         quality,
     };
     Ok(PreviewOutcome {

@@ -65,7 +65,8 @@ pub struct PreviewReport {
     pub settings: Settings,
     pub evaluation: EvaluationInfo,
     pub summary: Summary,
-    /// Every query whose label is not `unchanged`, most searched first.
+    /// Every query whose label is not `unchanged`: emptied, lost and judged-worse queries
+    /// first whatever their traffic ([`QueryChange::urgency`]), then by searches.
     pub queries: Vec<QueryChange>,
     pub quality: Option<Quality>,
 }
@@ -214,6 +215,42 @@ pub struct QueryChange {
     pub top_before: Vec<RankedDoc>,
     pub top_after: Vec<RankedDoc>,
     pub causes: Vec<Cause>,
+    /// For a judged query: its nDCG@10 on both sides, so a label that counts documents
+    /// never hides a judged loss.
+    pub judged: Option<JudgedMove>,
+}
+
+/// A judged query's headline metric on both sides.
+#[derive(Clone, Debug, Serialize)]
+pub struct JudgedMove {
+    pub metric: Metric,
+    pub before: f64,
+    pub after: f64,
+}
+
+/// The changed queries a limited listing shows: every urgent one (emptied, lost, judged
+/// worse), whatever the limit, then up to `limit` of the rest, in report order.
+pub fn listed(queries: &[QueryChange], limit: usize) -> impl Iterator<Item = &QueryChange> {
+    let urgent = queries.iter().take_while(|q| q.urgency() < 3);
+    let rest = queries.iter().skip_while(|q| q.urgency() < 3).take(limit);
+    urgent.chain(rest)
+}
+
+impl QueryChange {
+    /// Whether judged quality fell.
+    pub fn judged_worse(&self) -> bool {
+        self.judged.as_ref().is_some_and(|j| j.after < j.before)
+    }
+
+    /// How bad the news is, most urgent first: emptied, lost, judged worse, the rest.
+    pub fn urgency(&self) -> u8 {
+        match self.label {
+            Label::Emptied => 0,
+            Label::Lost => 1,
+            _ if self.judged_worse() => 2,
+            _ => 3,
+        }
+    }
 }
 
 #[derive(Clone, Debug, Serialize)]

@@ -4,7 +4,7 @@
 use std::fmt::Write as _;
 
 use super::style::{Style, pad};
-use crate::preview::{Cause, Label, PreviewReport, QueryChange, RuleChange};
+use crate::preview::{Cause, Label, PreviewReport, QueryChange, RuleChange, listed};
 
 /// How many queries and documents the text shows.
 #[derive(Clone, Copy, Debug)]
@@ -58,9 +58,20 @@ fn cause_line(c: &Cause) -> String {
 fn query(out: &mut String, q: &QueryChange, style: Style, limits: Limits) {
     let label = paint(style, q.label, q.label.name());
     let mixed = if q.mixed { ", mixed" } else { "" };
+    let judged = match &q.judged {
+        Some(j) if (j.after - j.before).abs() > 1e-12 => {
+            let text = format!(", {} {:.4} -> {:.4}", j.metric, j.before, j.after);
+            if j.after < j.before {
+                style.red(&text)
+            } else {
+                text
+            }
+        }
+        _ => String::new(),
+    };
     let _ = writeln!(
         out,
-        "  {}  [{label}{mixed}]  {} searches  matches {} -> {}  (+{} -{})  RBO {:.3}",
+        "  {}  [{label}{mixed}{judged}]  {} searches  matches {} -> {}  (+{} -{})  RBO {:.3}",
         style.bold(&q.query),
         thousands(q.searches),
         q.matches_before,
@@ -188,14 +199,20 @@ pub fn render(report: &PreviewReport, style: Style, limits: Limits) -> String {
     out.push('\n');
 
     if !report.queries.is_empty() {
-        let shown = report.queries.len().min(limits.queries);
+        let listed: Vec<&QueryChange> = listed(&report.queries, limits.queries).collect();
+        let urgent = listed.iter().filter(|q| q.urgency() < 3).count();
+        let urgent = match urgent {
+            1 => "1 query".to_string(),
+            n => format!("{n} queries"),
+        };
         let _ = writeln!(
             out,
-            "{} ({shown} of {}, most searched first)",
+            "{} ({} of {}: every emptied, lost or judged-worse query ({urgent}), then the most searched)",
             style.bold("changed queries"),
+            listed.len(),
             report.queries.len()
         );
-        for q in report.queries.iter().take(limits.queries) {
+        for q in listed {
             query(&mut out, q, style, limits);
         }
         out.push('\n');

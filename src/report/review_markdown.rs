@@ -3,7 +3,7 @@
 
 use std::fmt::Write as _;
 
-use crate::preview::{Label, QueryChange};
+use crate::preview::{Label, QueryChange, listed};
 use crate::review::ReviewReport;
 use crate::review::diff::Change;
 
@@ -130,10 +130,21 @@ fn query_line(q: &QueryChange) -> String {
             None => format!("`{}`", escape(&c.rule)),
         })
         .collect();
+    let outcome = match &q.judged {
+        Some(j) if (j.after - j.before).abs() > 1e-12 => format!(
+            "{}, {} {:.4} → {:.4}{}",
+            q.label.name(),
+            j.metric,
+            j.before,
+            j.after,
+            if j.after < j.before { " ⚠" } else { "" }
+        ),
+        _ => q.label.name().to_string(),
+    };
     format!(
         "| {} | {} | {} | {} → {} (+{} −{}) | {:.2} | {} |",
         escape(&q.query),
-        q.label.name(),
+        outcome,
         q.searches,
         q.matches_before,
         q.matches_after,
@@ -156,9 +167,13 @@ fn affected(out: &mut String, r: &ReviewReport, limits: Limits) {
         return;
     }
     let header = "| query | outcome | searches | matches | RBO | caused by |\n| --- | --- | ---: | --- | ---: | --- |\n";
-    let _ = writeln!(out, "### Most-searched affected queries\n");
+    let _ = writeln!(
+        out,
+        "### Affected queries: every emptied, lost or judged-worse query, then the most searched\n"
+    );
     out.push_str(header);
-    for q in changed.iter().take(limits.queries) {
+    let shown: Vec<&QueryChange> = listed(&r.preview.queries, limits.queries).collect();
+    for q in &shown {
         let _ = writeln!(out, "{}", query_line(q));
     }
     out.push('\n');
@@ -182,7 +197,7 @@ fn affected(out: &mut String, r: &ReviewReport, limits: Limits) {
         out,
         "<details><summary>Gained and lost documents per query</summary>\n"
     );
-    for q in changed.iter().take(limits.queries) {
+    for q in &shown {
         let _ = writeln!(out, "- **{}**", escape(&q.query));
         for (sign, docs) in [("+", &q.gained), ("−", &q.lost)] {
             for d in docs.iter().take(limits.docs) {
