@@ -46,11 +46,10 @@ impl Postings {
         if wanted.is_empty() {
             return Ok(Postings::default());
         }
-        let (parts, _) =
-            for_each_document(path, options, threads, Part::default, |part, i, texts| {
-                collect_document(surface, wanted, part, i, texts)
-            })?;
-        Ok(Self::merge(parts))
+        let walk = for_each_document(path, options, threads, Part::default, |part, i, texts| {
+            collect_document(surface, wanted, part, i, texts)
+        })?;
+        Ok(Self::merge(walk.states))
     }
 
     /// Threads saw disjoint documents, so concatenating and sorting keeps lists distinct.

@@ -13,7 +13,8 @@ use rustc_hash::FxHashMap;
 
 use crate::analysis::SurfaceStage;
 use crate::corpus::{
-    CorpusError, DocOptions, Document, QueryLog, for_each_document, for_each_in_memory,
+    CorpusError, CorpusWarning, DocOptions, Document, QueryLog, for_each_document,
+    for_each_in_memory,
 };
 
 /// One distinct surface form.
@@ -45,6 +46,8 @@ type Counts = FxHashMap<Box<str>, (u64, usize)>;
 pub struct DocumentCounts {
     merged: Merged,
     documents: usize,
+    /// The reader's warnings (fields few documents have).
+    pub warnings: Vec<CorpusWarning>,
 }
 
 impl DocumentCounts {
@@ -56,6 +59,7 @@ impl DocumentCounts {
         DocumentCounts {
             merged: merge(tables),
             documents: documents.len(),
+            warnings: Vec::new(),
         }
     }
 
@@ -67,7 +71,7 @@ impl DocumentCounts {
         options: &DocOptions,
         threads: usize,
     ) -> Result<Self, CorpusError> {
-        let (tables, documents) = for_each_document(
+        let walk = for_each_document(
             path,
             options,
             threads,
@@ -75,8 +79,9 @@ impl DocumentCounts {
             |counts, i, texts| count_document(surface, counts, i, texts),
         )?;
         Ok(DocumentCounts {
-            merged: merge(tables),
-            documents,
+            merged: merge(walk.states),
+            documents: walk.documents,
+            warnings: walk.warnings,
         })
     }
 }
@@ -106,6 +111,7 @@ impl Vocabulary {
         let DocumentCounts {
             mut merged,
             documents,
+            ..
         } = counts;
         let (queries_n, searches) = match queries {
             Some(log) => {

@@ -8,10 +8,11 @@ use lexdelta::audit::concepts::{read_groups, wordnet_groups};
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::stemcheck::{ConceptGroups, stemcheck};
 use lexdelta::audit::vocabulary::Vocabulary;
-use lexdelta::corpus::{DocOptions, read_documents};
+use lexdelta::corpus::read_documents;
 use lexdelta::report::stemcheck_text;
 use lexdelta::rules::load_dir;
 
+use super::input::{CorpusArgs, input_error, warn};
 use super::{CliError, print};
 
 /// Measure under-stemming (UI), over-stemming (OI), their ratio (SW) and the error rate
@@ -32,9 +33,8 @@ pub struct Args {
     /// Derive concept groups from WordNet over the --corpus vocabulary.
     #[arg(long, requires = "corpus")]
     wordnet_groups: bool,
-    /// The documents whose vocabulary --wordnet-groups uses.
-    #[arg(long)]
-    corpus: Option<PathBuf>,
+    #[command(flatten)]
+    input: CorpusArgs,
     /// The WordNet 3.0 `dict` directory.
     #[arg(long, default_value = "/usr/share/wordnet")]
     wordnet: PathBuf,
@@ -68,7 +68,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         ),
     ];
     let surface = analyzers[2].1.surface();
-    let (groups, source) = match (&args.groups, &args.corpus) {
+    let (groups, source) = match (&args.groups, &args.input.corpus) {
         (Some(path), _) => (read_groups(path, surface)?, path.display().to_string()),
         (None, Some(corpus)) => (
             corpus_groups(&args, corpus, &analyzers[2].1)?,
@@ -101,7 +101,9 @@ fn corpus_groups(
     corpus: &std::path::Path,
     analyzer: &Analyzer,
 ) -> Result<ConceptGroups, CliError> {
-    let corpus = read_documents(corpus, &DocOptions::default())?;
+    let corpus =
+        read_documents(corpus, &args.input.doc_options(None, 0)?).map_err(input_error)?;
+    warn(&corpus.warnings);
     let morphy = Morphy::load(&args.wordnet)?;
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
     let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, None, threads);

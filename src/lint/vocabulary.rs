@@ -12,6 +12,7 @@ use rustc_hash::{FxHashMap, FxHashSet};
 use serde::Serialize;
 
 use crate::analysis::{Analyzer, SurfaceStage};
+use crate::corpus::{Corpus, QueryLog};
 
 /// How often one surface form occurs.
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Serialize)]
@@ -58,6 +59,22 @@ impl Vocabulary {
         }
         for (text, count) in queries {
             vocabulary.add_query(surface, text.as_ref(), count);
+        }
+        vocabulary
+    }
+
+    /// The vocabulary of a corpus (every searched field of each document) and a query log.
+    pub fn from_corpus(
+        surface: &SurfaceStage,
+        corpus: Option<&Corpus>,
+        log: Option<&QueryLog>,
+    ) -> Self {
+        let mut vocabulary = Vocabulary::new();
+        for doc in corpus.iter().flat_map(|c| &c.documents) {
+            vocabulary.add_document(surface, &doc.texts.join("\n\n"));
+        }
+        for q in log.iter().flat_map(|l| &l.queries) {
+            vocabulary.add_query(surface, &q.query, q.count);
         }
         vocabulary
     }

@@ -398,6 +398,12 @@ pub fn run_opened(
         .map(|j| judge::quality(j, &folded.judged, options))
         .transpose()?;
 
+    // Silence is a failure: a preview in which no query finds anything says so.
+    let warnings = if engine.finds_anything(&plan, &folded.changes)? {
+        Vec::new()
+    } else {
+        vec![PreviewWarning::NothingFound]
+    };
     let change = &keyed.change;
     let report = PreviewReport {
         notice: EVIDENCE_NOTICE.to_string(),
@@ -434,6 +440,7 @@ pub fn run_opened(
         summary: folded.summary,
         queries: folded.changes,
         quality,
+        warnings,
     };
     Ok(PreviewOutcome {
         report,
