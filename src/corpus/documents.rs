@@ -604,7 +604,7 @@ mod tests {
         assert!(err.to_string().contains("d.jsonl:2:"), "{err}");
 
         let lines: String = (0..100)
-            .map(|i| format!("{{\"id\":\"d{i}\",\"body\":\"x\"}}\n"))
+            .map(|i| format!("{{\"id\":\"d{i}\",\"title\":\"t\",\"body\":\"x\"}}\n"))
             .collect();
         fs::write(&p, lines).unwrap();
         let o = DocOptions {

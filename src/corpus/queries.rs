@@ -344,7 +344,7 @@ mod tests {
         fs::write(&j, "{\"query\":\"a\",\"count\":99999999999999999999}\n").unwrap();
         let err = read_queries(&j).unwrap_err().to_string();
         assert!(
-            err.contains("q.jsonl:1: \"count\": the count 1e20 is larger than the largest count"),
+            err.contains("q.jsonl:1: \"count\": the count 1e+20 is larger than the largest count"),
             "{err}"
         );
         fs::write(&j, "{\"query\":\"a\",\"count\":-1}\n").unwrap();
