@@ -62,7 +62,11 @@ fn json(run: &Run) -> Value {
 
 /// Exit 2 with a message, never a panic.
 fn refused(run: &Run, fragments: &[&str]) {
-    assert_eq!(run.code, 2, "stdout: {}\nstderr: {}", run.stdout, run.stderr);
+    assert_eq!(
+        run.code, 2,
+        "stdout: {}\nstderr: {}",
+        run.stdout, run.stderr
+    );
     assert!(!run.stderr.contains("panicked"), "{}", run.stderr);
     for f in fragments {
         assert!(run.stderr.contains(f), "{f:?} not in: {}", run.stderr);
@@ -83,7 +87,11 @@ fn lint_reads_every_corpus_format_and_query_layout_alike() {
                 "--format",
                 "json",
             ]);
-            assert!(r.code == 0 || r.code == 1, "{corpus} {queries}: {}", r.stderr);
+            assert!(
+                r.code == 0 || r.code == 1,
+                "{corpus} {queries}: {}",
+                r.stderr
+            );
             let mut vocabulary = json(&r)["vocabulary"].clone();
             assert!(vocabulary["forms"].as_u64().unwrap() > 50, "{vocabulary}");
             assert_eq!(vocabulary["documents"], 10, "{corpus}");
@@ -160,13 +168,7 @@ fn a_field_no_document_has_is_an_error_in_every_command() {
         &["searched field `title`", fields, "--field"],
     );
     refused(
-        &run(&[
-            "lint",
-            "--corpus",
-            &corpus,
-            "--field",
-            "description",
-        ]),
+        &run(&["lint", "--corpus", &corpus, "--field", "description"]),
         &["no document has the id field `id`", fields, "--id-field"],
     );
     refused(
@@ -211,7 +213,10 @@ fn a_field_no_document_has_is_an_error_in_every_command() {
             "--field",
             "text",
         ]),
-        &["searched field `text`", "the documents have `body`, `id`, `title`"],
+        &[
+            "searched field `text`",
+            "the documents have `body`, `id`, `title`",
+        ],
     );
     // Named right, the same corpus reads.
     let r = preview(
@@ -252,9 +257,9 @@ fn a_field_few_documents_have_is_a_warning() {
     ]);
     assert!(r.code == 0 || r.code == 1, "{}", r.stderr);
     assert!(
-        r.stderr.contains(
-            "warning: ", 
-        ) && r.stderr.contains("only 1 of 300 documents (0.33%) have the searched field `note`"),
+        r.stderr.contains("warning: ",)
+            && r.stderr
+                .contains("only 1 of 300 documents (0.33%) have the searched field `note`"),
         "{}",
         r.stderr
     );
@@ -296,11 +301,20 @@ fn the_query_format_comes_from_the_content_or_the_option() {
 fn inputs_without_documents_are_errors_not_panics() {
     for (corpus, why) in [
         ("empty.jsonl", "no documents: the file is empty"),
-        ("blank.jsonl", "no documents: the file holds only blank lines"),
+        (
+            "blank.jsonl",
+            "no documents: the file holds only blank lines",
+        ),
         ("header-only.csv", "no documents: a CSV header and no rows"),
-        ("empty-dir", "no documents: no .txt or .md files in the directory"),
+        (
+            "empty-dir",
+            "no documents: no .txt or .md files in the directory",
+        ),
     ] {
-        refused(&preview(&fix(corpus), &fix("queries.txt"), &[]), &[corpus, why]);
+        refused(
+            &preview(&fix(corpus), &fix("queries.txt"), &[]),
+            &[corpus, why],
+        );
         refused(
             &run(&[
                 "review",
@@ -319,12 +333,20 @@ fn inputs_without_documents_are_errors_not_panics() {
         refused(&run(&["lint", "--corpus", &fix(corpus)]), &[why]);
     }
     refused(
-        &preview(&fix("library.jsonl"), &fix("queries.txt"), &["--sample", "0"]),
+        &preview(
+            &fix("library.jsonl"),
+            &fix("queries.txt"),
+            &["--sample", "0"],
+        ),
         &["--sample", "a sample of 0 documents holds nothing"],
     );
     // A fraction that keeps nothing of a small corpus.
     refused(
-        &preview(&fix("library.jsonl"), &fix("queries.txt"), &["--sample", "0.01"]),
+        &preview(
+            &fix("library.jsonl"),
+            &fix("queries.txt"),
+            &["--sample", "0.01"],
+        ),
         &["the sample keeps none of the 10 documents"],
     );
     refused(
@@ -349,7 +371,11 @@ fn a_preview_that_finds_nothing_says_so_and_fails_the_gate() {
     );
     assert_eq!(json(&r)["warnings"], serde_json::json!(["nothing_found"]));
     // One query that matches is enough: no warning, and none in the JSON.
-    let r = preview(&fix("library.jsonl"), &fix("queries.txt"), &["--format", "json"]);
+    let r = preview(
+        &fix("library.jsonl"),
+        &fix("queries.txt"),
+        &["--format", "json"],
+    );
     assert!(!r.stderr.contains("warning"), "{}", r.stderr);
     assert!(json(&r).get("warnings").is_none());
 
@@ -385,11 +411,7 @@ fn counts_past_the_largest_number_are_errors_with_their_line() {
         &["overflow.tsv:2: the count 18446744073709551616 is larger than the largest count"],
     );
     refused(
-        &run(&[
-            "lint",
-            "--queries",
-            &fix("overflow-sum.tsv"),
-        ]),
+        &run(&["lint", "--queries", &fix("overflow-sum.tsv")]),
         &["overflow-sum.tsv:2: the searches of the log add up to more than 18446744073709551615"],
     );
 }
@@ -442,12 +464,20 @@ fn a_directory_corpus_with_link_loops_is_read_once_and_links_out_are_refused() {
     let dir = tempfile::tempdir().unwrap();
     let root = dir.path().join("docs");
     std::fs::create_dir_all(root.join("a/b")).unwrap();
-    for (i, entry) in std::fs::read_dir(Path::new(env!("CARGO_MANIFEST_DIR")).join(FIX).join("library"))
-        .unwrap()
-        .enumerate()
+    for (i, entry) in std::fs::read_dir(
+        Path::new(env!("CARGO_MANIFEST_DIR"))
+            .join(FIX)
+            .join("library"),
+    )
+    .unwrap()
+    .enumerate()
     {
         let entry = entry.unwrap();
-        let into = if i % 2 == 0 { root.join("a/b") } else { root.clone() };
+        let into = if i % 2 == 0 {
+            root.join("a/b")
+        } else {
+            root.clone()
+        };
         std::fs::copy(entry.path(), into.join(entry.file_name())).unwrap();
     }
     // Loops back up the tree, and a second name for a directory.
@@ -469,7 +499,10 @@ fn a_directory_corpus_with_link_loops_is_read_once_and_links_out_are_refused() {
     symlink(outside.path().join("secret.txt"), root.join("s.txt")).unwrap();
     refused(
         &run(&["lint", "--corpus", root.to_str().unwrap()]),
-        &["s.txt: a symbolic link in the corpus directory", "leads outside it"],
+        &[
+            "s.txt: a symbolic link in the corpus directory",
+            "leads outside it",
+        ],
     );
 }
 

@@ -13,9 +13,9 @@ use super::effect::{self, Effect};
 use super::morphy::Morphy;
 use super::postings::Postings;
 use super::suggest::{self, Suggestion};
-use super::vocabulary::{DocumentCounts, Vocabulary};
 use crate::analysis::Analyzer;
 use crate::corpus::{Corpus, CorpusError, DocOptions, QueryLog};
+use crate::corpus::{DocumentCounts, Vocabulary};
 
 /// How much to compute.
 #[derive(Clone, Debug)]

@@ -8,7 +8,7 @@ use lexdelta::atomic::write_file;
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::report::{CollisionOptions, collision_report_from_file};
 use lexdelta::audit::suggest::rule_file;
-use lexdelta::audit::vocabulary::DocumentCounts;
+use lexdelta::corpus::DocumentCounts;
 use lexdelta::report::{ColorChoice, Style, collisions_csv, collisions_json, collisions_text};
 
 use super::input::{CorpusArgs, QueryArgs, input_error, warn};

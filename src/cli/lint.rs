@@ -4,8 +4,8 @@ use std::path::PathBuf;
 use std::process::ExitCode;
 
 use lexdelta::analysis::Analyzer;
-use lexdelta::corpus::read_documents;
 use lexdelta::atomic::write_file;
+use lexdelta::corpus::read_documents;
 use lexdelta::lint::{LintConfig, LintInput, Vocabulary, checks, lint};
 use lexdelta::report::{ColorChoice, Style, lint_dot, lint_json, lint_sarif, lint_text};
 use lexdelta::rules::{self, Level};
@@ -154,8 +154,8 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     // vocabulary the corpus-aware checks judge rules against.
     let corpus = match &args.input.corpus {
         Some(path) => {
-            let corpus = read_documents(path, &args.input.doc_options(None, 0)?)
-                .map_err(input_error)?;
+            let corpus =
+                read_documents(path, &args.input.doc_options(None, 0)?).map_err(input_error)?;
             warn(&corpus.warnings);
             Some(corpus)
         }
@@ -189,4 +189,3 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         ExitCode::SUCCESS
     })
 }
-

@@ -7,7 +7,7 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::audit::concepts::{read_groups, wordnet_groups};
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::stemcheck::{ConceptGroups, stemcheck};
-use lexdelta::audit::vocabulary::Vocabulary;
+use lexdelta::corpus::Vocabulary;
 use lexdelta::corpus::read_documents;
 use lexdelta::report::stemcheck_text;
 use lexdelta::rules::load_dir;
@@ -101,8 +101,7 @@ fn corpus_groups(
     corpus: &std::path::Path,
     analyzer: &Analyzer,
 ) -> Result<ConceptGroups, CliError> {
-    let corpus =
-        read_documents(corpus, &args.input.doc_options(None, 0)?).map_err(input_error)?;
+    let corpus = read_documents(corpus, &args.input.doc_options(None, 0)?).map_err(input_error)?;
     warn(&corpus.warnings);
     let morphy = Morphy::load(&args.wordnet)?;
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get());

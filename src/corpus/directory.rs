@@ -75,10 +75,9 @@ impl Walk<'_> {
                     return Err(self.refuse(&path, "leads nowhere (a broken link or a loop)"));
                 };
                 if !target.starts_with(self.root) {
-                    return Err(self.refuse(
-                        &path,
-                        &format!("leads outside it, to {}", target.display()),
-                    ));
+                    return Err(
+                        self.refuse(&path, &format!("leads outside it, to {}", target.display()))
+                    );
                 }
                 let meta = fs::metadata(&path).map_err(io(&path))?;
                 if meta.is_dir() {
@@ -143,7 +142,11 @@ mod tests {
         symlink(&root, root.join("a/loop")).unwrap();
         symlink(root.join("b.md"), root.join("c.md")).unwrap();
         symlink(root.join("a"), root.join("z")).unwrap();
-        let ids: Vec<String> = text_files(&root).unwrap().into_iter().map(|f| f.0).collect();
+        let ids: Vec<String> = text_files(&root)
+            .unwrap()
+            .into_iter()
+            .map(|f| f.0)
+            .collect();
         assert_eq!(ids, ["a/one.txt", "b.md"]);
 
         symlink(outside.path().join("secret.txt"), root.join("s.txt")).unwrap();

@@ -210,9 +210,7 @@ fn read(path: &Path, options: &DocOptions, texts: bool) -> Result<Corpus, Corpus
     let format = DocumentFormat::detect(path)?;
     let mut presence = Presence::new(options);
     let documents = match format {
-        DocumentFormat::Directory => {
-            read_directory(path, options, &mut hasher, &mut presence)?
-        }
+        DocumentFormat::Directory => read_directory(path, options, &mut hasher, &mut presence)?,
         DocumentFormat::JsonLines => {
             stream_json_lines(path, options, texts, &mut hasher, &mut presence)?
         }

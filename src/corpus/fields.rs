@@ -296,8 +296,13 @@ mod tests {
 
         let csv = dir.path().join("d.csv");
         fs::write(&csv, "id,heading,text\na,Fares,Buy\n").unwrap();
-        let err = read_documents(&csv, &options(&["body"])).unwrap_err().to_string();
-        assert!(err.contains("the documents have `heading`, `id`, `text`"), "{err}");
+        let err = read_documents(&csv, &options(&["body"]))
+            .unwrap_err()
+            .to_string();
+        assert!(
+            err.contains("the documents have `heading`, `id`, `text`"),
+            "{err}"
+        );
     }
 
     #[test]
@@ -320,9 +325,17 @@ mod tests {
                 total: 200,
             }]
         );
-        assert!(corpus.warnings[0].to_string().contains("only 1 of 200 documents (0.50%)"));
+        assert!(
+            corpus.warnings[0]
+                .to_string()
+                .contains("only 1 of 200 documents (0.50%)")
+        );
         // 2 of 200 is 1%: no warning.
-        fs::write(&p, text.replace("\"id\":\"d1\",", "\"id\":\"d1\",\"note\":\"y\",")).unwrap();
+        fs::write(
+            &p,
+            text.replace("\"id\":\"d1\",", "\"id\":\"d1\",\"note\":\"y\","),
+        )
+        .unwrap();
         assert!(
             read_documents(&p, &options(&["body", "note"]))
                 .unwrap()

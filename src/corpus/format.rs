@@ -117,7 +117,11 @@ impl QueryFormat {
         let Some((_, first)) = lines.clone().next() else {
             return Ok(QueryFormat::Lines);
         };
-        if first.trim_start_matches('\u{feff}').trim_start().starts_with('{') {
+        if first
+            .trim_start_matches('\u{feff}')
+            .trim_start()
+            .starts_with('{')
+        {
             return Ok(QueryFormat::JsonLines);
         }
         let mut tabbed = false;
@@ -216,7 +220,10 @@ mod tests {
         let dir = tempfile::tempdir().unwrap();
         let p = dir.path().join("docs.csv");
         fs::write(&p, "\u{feff}\n  {\"id\":\"a\"}\n").unwrap();
-        assert_eq!(DocumentFormat::detect(&p).unwrap(), DocumentFormat::JsonLines);
+        assert_eq!(
+            DocumentFormat::detect(&p).unwrap(),
+            DocumentFormat::JsonLines
+        );
         let p = dir.path().join("docs.jsonl");
         fs::write(&p, "id,title\na,b\n").unwrap();
         assert_eq!(DocumentFormat::detect(&p).unwrap(), DocumentFormat::Csv);

@@ -58,7 +58,10 @@ pub fn read_judgments(
                     path: path.to_path_buf(),
                 });
             };
-            (metrics::read_trec_qrels(path)?, metrics::read_queries(texts)?)
+            (
+                metrics::read_trec_qrels(path)?,
+                metrics::read_queries(texts)?,
+            )
         }
     })
 }
@@ -78,7 +81,10 @@ mod tests {
         let qrels = dir.path().join("judgments.csv");
         fs::write(&qrels, "q1 0 d1 2\n").unwrap();
         let err = read_judgments(&qrels, None).unwrap_err();
-        assert!(matches!(err, CorpusError::QrelsWithoutTexts { .. }), "{err}");
+        assert!(
+            matches!(err, CorpusError::QrelsWithoutTexts { .. }),
+            "{err}"
+        );
         let texts = dir.path().join("texts.tsv");
         fs::write(&texts, "q1\tpram\n").unwrap();
         let (j, q) = read_judgments(&qrels, Some(&texts)).unwrap();

@@ -12,6 +12,7 @@ mod format;
 mod judged;
 mod queries;
 mod stream;
+pub mod vocabulary;
 
 pub use documents::{
     Corpus, DocOptions, Document, FieldSpec, Sample, read_documents, read_documents_without_texts,
@@ -22,3 +23,4 @@ pub use format::{DocumentFormat, QueryFormat};
 pub use judged::{JudgmentFormat, read_judgments};
 pub use queries::{QueryEntry, QueryLog, read_queries, read_queries_as};
 pub use stream::{Walk, for_each_document, for_each_in_memory};
+pub use vocabulary::{DocumentCounts, FormStats, Vocabulary, VocabularySummary};

@@ -336,10 +336,16 @@ mod tests {
         let p = dir.path().join("q.tsv");
         fs::write(&p, "a\t1\nb\t18446744073709551616\n").unwrap();
         let err = read_queries(&p).unwrap_err().to_string();
-        assert!(err.contains("q.tsv:2: the count 18446744073709551616 is larger"), "{err}");
+        assert!(
+            err.contains("q.tsv:2: the count 18446744073709551616 is larger"),
+            "{err}"
+        );
         fs::write(&p, "a\t18446744073709551615\nb\t1\n").unwrap();
         let err = read_queries(&p).unwrap_err().to_string();
-        assert!(err.contains("q.tsv:2: the searches of the log add up"), "{err}");
+        assert!(
+            err.contains("q.tsv:2: the searches of the log add up"),
+            "{err}"
+        );
         let j = dir.path().join("q.jsonl");
         fs::write(&j, "{\"query\":\"a\",\"count\":99999999999999999999}\n").unwrap();
         let err = read_queries(&j).unwrap_err().to_string();
@@ -355,7 +361,10 @@ mod tests {
         )
         .unwrap();
         let err = read_queries(&j).unwrap_err().to_string();
-        assert!(err.contains("q.jsonl:2: the searches or clicks of \"a\""), "{err}");
+        assert!(
+            err.contains("q.jsonl:2: the searches or clicks of \"a\""),
+            "{err}"
+        );
     }
 
     #[test]
