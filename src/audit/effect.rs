@@ -7,7 +7,7 @@ use rustc_hash::FxHashSet;
 use serde::Serialize;
 
 use super::collisions::KeyIndex;
-use super::postings::Postings;
+use super::postings::FormLists;
 use super::suggest::Suggestion;
 use crate::analysis::SurfaceStage;
 use crate::corpus::QueryLog;
@@ -53,7 +53,7 @@ pub fn forms_needed(suggestion: &Suggestion, index: &KeyIndex, into: &mut FxHash
 pub fn estimate_effect(
     suggestion: &Suggestion,
     index: &KeyIndex,
-    postings: &Postings,
+    postings: &FormLists,
     surface: &SurfaceStage,
     log: &QueryLog,
 ) -> Effect {
