@@ -37,14 +37,14 @@ fn fix(name: &str) -> String {
     format!("{FIX}/{name}")
 }
 
-/// A preview of the demo change over the given inputs.
-fn preview(corpus: &str, queries: &str, extra: &[&str]) -> Run {
+/// `preview` or `review` of `rules` → `head` over the given inputs.
+fn compare(command: &str, head: &str, corpus: &str, queries: &str, extra: &[&str]) -> Run {
     let mut args = vec![
-        "preview",
+        command,
         "--base",
         "rules",
         "--head",
-        "demo-corpus/proposed",
+        head,
         "--corpus",
         corpus,
         "--queries",
@@ -53,6 +53,16 @@ fn preview(corpus: &str, queries: &str, extra: &[&str]) -> Run {
     ];
     args.extend_from_slice(extra);
     run(&args)
+}
+
+/// A preview of the demo change over the given inputs.
+fn preview(corpus: &str, queries: &str, extra: &[&str]) -> Run {
+    compare("preview", "demo-corpus/proposed", corpus, queries, extra)
+}
+
+/// A review of the demo change over the given inputs.
+fn review(corpus: &str, queries: &str, extra: &[&str]) -> Run {
+    compare("review", "demo-corpus/proposed", corpus, queries, extra)
 }
 
 fn json(run: &Run) -> Value {
@@ -146,6 +156,18 @@ fn preview_reads_csv_and_directory_corpora_as_it_reads_json_lines() {
     assert_eq!(summary(docs.to_str().unwrap()), jsonl);
 }
 
+/// The options that name `catalogue.csv`'s fields, with this title field.
+fn catalogue_fields(title: &str) -> [&str; 6] {
+    [
+        "--id-field",
+        "ref",
+        "--field",
+        "description",
+        "--title-field",
+        title,
+    ]
+}
+
 #[test]
 fn a_field_no_document_has_is_an_error_in_every_command() {
     let corpus = fix("catalogue.csv");
@@ -172,24 +194,7 @@ fn a_field_no_document_has_is_an_error_in_every_command() {
         &["no document has the id field `id`", fields, "--id-field"],
     );
     refused(
-        &run(&[
-            "review",
-            "--base",
-            "rules",
-            "--head",
-            "demo-corpus/proposed",
-            "--corpus",
-            &corpus,
-            "--queries",
-            &fix("queries.txt"),
-            "--id-field",
-            "ref",
-            "--field",
-            "description",
-            "--title-field",
-            "titel",
-            "--no-cache",
-        ]),
+        &review(&corpus, &fix("queries.txt"), &catalogue_fields("titel")),
         &["no document has the title field `titel`", "--title-field"],
     );
     refused(
@@ -219,18 +224,7 @@ fn a_field_no_document_has_is_an_error_in_every_command() {
         ],
     );
     // Named right, the same corpus reads.
-    let r = preview(
-        &corpus,
-        &fix("queries.txt"),
-        &[
-            "--id-field",
-            "ref",
-            "--field",
-            "description",
-            "--title-field",
-            "name",
-        ],
-    );
+    let r = preview(&corpus, &fix("queries.txt"), &catalogue_fields("name"));
     assert_eq!(r.code, 0, "{}", r.stderr);
 }
 
@@ -316,18 +310,7 @@ fn inputs_without_documents_are_errors_not_panics() {
             &[corpus, why],
         );
         refused(
-            &run(&[
-                "review",
-                "--base",
-                "rules",
-                "--head",
-                "demo-corpus/proposed",
-                "--corpus",
-                &fix(corpus),
-                "--queries",
-                &fix("queries.txt"),
-                "--no-cache",
-            ]),
+            &review(&fix(corpus), &fix("queries.txt"), &[]),
             &[corpus, why],
         );
         refused(&run(&["lint", "--corpus", &fix(corpus)]), &[why]);
@@ -381,20 +364,13 @@ fn a_preview_that_finds_nothing_says_so_and_fails_the_gate() {
 
     // The ruleset against itself: the only thing the gate can object to is the input.
     let review = |queries: &str| {
-        run(&[
+        compare(
             "review",
-            "--base",
             "rules",
-            "--head",
-            "rules",
-            "--corpus",
             &fix("library.jsonl"),
-            "--queries",
             &fix(queries),
-            "--no-cache",
-            "--format",
-            "json",
-        ])
+            &["--format", "json"],
+        )
     };
     let r = review("unmatched-queries.txt");
     assert_eq!(r.code, 1, "{}", r.stderr);
@@ -439,19 +415,7 @@ fn numbers_that_are_not_finite_are_usage_errors() {
         ("--max-lost-traffic-share", "1.5"),
     ] {
         refused(
-            &run(&[
-                "review",
-                "--base",
-                "rules",
-                "--head",
-                "demo-corpus/proposed",
-                "--corpus",
-                &fix("library.jsonl"),
-                "--queries",
-                &fix("queries.txt"),
-                option,
-                value,
-            ]),
+            &review(&fix("library.jsonl"), &fix("queries.txt"), &[option, value]),
             &[option],
         );
     }
