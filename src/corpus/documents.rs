@@ -350,6 +350,12 @@ fn document_of_line(
     })?;
     let text = text.strip_suffix('\n').unwrap_or(text);
     let text = text.strip_suffix('\r').unwrap_or(text);
+    // A byte-order mark some editors write before the first line is not part of the JSON.
+    let text = if i == 0 {
+        text.strip_prefix('\u{feff}').unwrap_or(text)
+    } else {
+        text
+    };
     if text.trim().is_empty() {
         return Ok(None);
     }
@@ -591,6 +597,15 @@ mod tests {
         let full = read_documents(&jsonl, &o).unwrap();
         assert_eq!(full.documents.len(), 2);
         assert_eq!(full.documents[0].texts[1], "Ask at the desk.");
+    }
+
+    #[test]
+    fn a_byte_order_mark_before_the_first_document_is_skipped() {
+        let dir = tempfile::tempdir().unwrap();
+        let p = dir.path().join("d.jsonl");
+        fs::write(&p, "\u{feff}{\"id\":\"a\",\"title\":\"T\",\"body\":\"B\"}\n").unwrap();
+        let corpus = read_documents(&p, &DocOptions::default()).unwrap();
+        assert_eq!(corpus.documents[0].id, "a");
     }
 
     #[test]

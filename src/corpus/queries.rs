@@ -147,12 +147,13 @@ pub fn read_queries_as(path: &Path, format: Option<QueryFormat>) -> Result<Query
             ),
         }
     })?;
+    let text = text.strip_prefix('\u{feff}').unwrap_or(&text);
     let format = match format {
         Some(f) => f,
-        None => QueryFormat::detect(path, &text)?,
+        None => QueryFormat::detect(path, text)?,
     };
     let entries = match format {
-        QueryFormat::Ids => ids(path, &text)?,
+        QueryFormat::Ids => ids(path, text)?,
         _ => {
             let mut entries = Vec::new();
             for (i, line) in text.lines().enumerate() {
@@ -365,6 +366,19 @@ mod tests {
             err.contains("q.jsonl:2: the searches or clicks of \"a\""),
             "{err}"
         );
+    }
+
+    #[test]
+    fn a_byte_order_mark_is_not_part_of_the_first_query() {
+        let dir = tempfile::tempdir().unwrap();
+        let p = dir.path().join("q.tsv");
+        fs::write(&p, "\u{feff}timetable\t90\r\npram\t3\r\n").unwrap();
+        let log = read_queries(&p).unwrap();
+        assert_eq!(log.queries[0].query, "timetable");
+        assert_eq!(log.total_searches(), 93);
+        let j = dir.path().join("q.jsonl");
+        fs::write(&j, "\u{feff}{\"query\":\"pram\"}\n").unwrap();
+        assert_eq!(read_queries(&j).unwrap().queries[0].query, "pram");
     }
 
     #[test]

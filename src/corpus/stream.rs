@@ -275,6 +275,11 @@ where
                 continue;
             }
             let number = first + k;
+            let line = if number == 0 {
+                line.strip_prefix('\u{feff}').unwrap_or(line)
+            } else {
+                line
+            };
             let slow;
             let id: &str;
             let has_title;
@@ -492,7 +497,7 @@ mod tests {
         let p = dir.path().join("d.jsonl");
         std::fs::write(
             &p,
-            "{\"id\":\"a\",\"title\":\"Caf\\u00e9 \\\"x\\\"\",\"body\":null,\"n\":[1,{\"k\":2.5}]}\r\n\
+            "\u{feff}{\"id\":\"a\",\"title\":\"Caf\\u00e9 \\\"x\\\"\",\"body\":null,\"n\":[1,{\"k\":2.5}]}\r\n\
              \n   \n{\"body\":\"b1\",\"id\":7,\"title\":3}\n{\"id\":\"c\",\"body\":\"x\",\"body\":\"y\"}",
         )
         .unwrap();
