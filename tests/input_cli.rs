@@ -407,7 +407,7 @@ fn numbers_that_are_not_finite_are_usage_errors() {
     }
     refused(
         &preview(&fix("library.jsonl"), &fix("queries.txt"), &["--k1=-1"]),
-        &["--k1: BM25 k1 must be a finite number of 0 or more"],
+        &["invalid BM25 k1: -1 is not a finite number of at least 0"],
     );
     for (option, value) in [
         ("--max-ndcg-drop", "NaN"),
