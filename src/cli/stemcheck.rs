@@ -7,8 +7,7 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::audit::concepts::{read_groups, wordnet_groups};
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::stemcheck::{ConceptGroups, stemcheck};
-use lexdelta::corpus::Vocabulary;
-use lexdelta::corpus::read_documents;
+use lexdelta::corpus::{DocumentCounts, Vocabulary};
 use lexdelta::report::stemcheck_text;
 use lexdelta::rules::load_dir;
 
@@ -101,11 +100,14 @@ fn corpus_groups(
     corpus: &std::path::Path,
     analyzer: &Analyzer,
 ) -> Result<ConceptGroups, CliError> {
-    let corpus = read_documents(corpus, &args.input.doc_options(None, 0)?).map_err(input_error)?;
-    warn(&corpus.warnings);
-    let morphy = Morphy::load(&args.wordnet)?;
+    // The corpus is streamed and only its forms counted, as `collisions` reads it.
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
-    let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, None, threads);
+    let options = args.input.doc_options(None, 0)?;
+    let counts = DocumentCounts::from_file(analyzer.surface(), corpus, &options, threads)
+        .map_err(input_error)?;
+    warn(&counts.warnings);
+    let morphy = Morphy::load(&args.wordnet)?;
+    let vocabulary = Vocabulary::from_counts(analyzer.surface(), counts, None);
     let (groups, _skipped) =
         wordnet_groups(vocabulary.forms.iter().map(|f| f.form.as_str()), &morphy);
     Ok(groups)

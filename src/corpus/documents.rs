@@ -603,7 +603,11 @@ mod tests {
     fn a_byte_order_mark_before_the_first_document_is_skipped() {
         let dir = tempfile::tempdir().unwrap();
         let p = dir.path().join("d.jsonl");
-        fs::write(&p, "\u{feff}{\"id\":\"a\",\"title\":\"T\",\"body\":\"B\"}\n").unwrap();
+        fs::write(
+            &p,
+            "\u{feff}{\"id\":\"a\",\"title\":\"T\",\"body\":\"B\"}\n",
+        )
+        .unwrap();
         let corpus = read_documents(&p, &DocOptions::default()).unwrap();
         assert_eq!(corpus.documents[0].id, "a");
     }
