@@ -40,6 +40,7 @@ impl DocumentFormat {
         if meta.is_dir() {
             return Ok(DocumentFormat::Directory);
         }
+        regular(path, &meta)?;
         Ok(match first_char(path)? {
             Some(('{', _)) | None => DocumentFormat::JsonLines,
             Some(('[', line)) => {
@@ -163,6 +164,21 @@ impl fmt::Display for QueryFormat {
     }
 }
 
+/// Refuses what is not a regular file (a pipe, a device): its format is read from its
+/// first bytes and it may be read again, which a pipe cannot give.
+pub(super) fn regular(path: &Path, meta: &fs::Metadata) -> Result<(), CorpusError> {
+    if meta.is_file() {
+        Ok(())
+    } else {
+        Err(CorpusError::Invalid {
+            path: path.to_path_buf(),
+            message: "not a regular file (a pipe or a device): it is read more than once, \
+                      so write it to a file first"
+                .into(),
+        })
+    }
+}
+
 /// The first non-blank character of a file (past a byte-order mark) and its 1-based line;
 /// `None` for an empty or blank file. Reads only as far as that character.
 fn first_char(path: &Path) -> Result<Option<(char, usize)>, CorpusError> {
@@ -213,6 +229,13 @@ mod tests {
         // Negative or fractional counts are not counts either.
         assert!(detect("a\t-3\n").is_err());
         assert!(detect("a\t1.5\n").is_err());
+    }
+
+    #[cfg(unix)]
+    #[test]
+    fn a_pipe_or_a_device_is_refused_before_anything_is_read_from_it() {
+        let err = DocumentFormat::detect(Path::new("/dev/null")).unwrap_err();
+        assert!(err.to_string().contains("not a regular file"), "{err}");
     }
 
     #[test]

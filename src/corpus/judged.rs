@@ -28,6 +28,8 @@ impl JudgmentFormat {
             path: path.to_path_buf(),
             source,
         };
+        let meta = fs::metadata(path).map_err(io)?;
+        super::format::regular(path, &meta)?;
         let mut head = Vec::new();
         fs::File::open(path)
             .map_err(io)?
