@@ -497,3 +497,32 @@ fn judgments_are_read_by_their_content() {
         &["TREC qrels name queries by id", "--judged-queries"],
     );
 }
+
+#[test]
+fn given_inputs_win_over_the_demo_and_a_missing_one_is_named() {
+    let r = run(&[
+        "preview",
+        "--demo",
+        "--queries",
+        &fix("queries.tsv"),
+        "--no-cache",
+        "--format",
+        "json",
+    ]);
+    assert_eq!(r.code, 0, "{}", r.stderr);
+    let report = json(&r);
+    assert_eq!(report["queries_source"], fix("queries.tsv"));
+    assert_eq!(report["corpus"]["source"], "demo-corpus/documents.jsonl");
+    refused(
+        &run(&[
+            "preview",
+            "--base",
+            "rules",
+            "--head",
+            "rules",
+            "--queries",
+            &fix("queries.txt"),
+        ]),
+        &["--corpus is required (or --demo)"],
+    );
+}

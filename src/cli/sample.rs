@@ -132,16 +132,15 @@ impl SampleArgs {
             },
         };
         options.validate()?;
-        let (corpus_path, queries_path) = match (&self.input.corpus, &self.log.queries) {
-            (Some(c), Some(q)) => (c.clone(), q.clone()),
-            (None, _) if !self.demo => {
-                return Err(CliError("--corpus is required (or --demo)".into(), false));
-            }
-            (_, None) if !self.demo => {
-                return Err(CliError("--queries is required (or --demo)".into(), false));
-            }
-            _ => (PathBuf::from(DEMO_CORPUS), PathBuf::from(DEMO_QUERIES)),
+        // Given inputs win; --demo fills in the ones not given.
+        let given_or_demo = |given: &Option<PathBuf>, demo: &str, option: &str| {
+            given
+                .clone()
+                .or_else(|| self.demo.then(|| PathBuf::from(demo)))
+                .ok_or_else(|| CliError(format!("{option} is required (or --demo)"), false))
         };
+        let corpus_path = given_or_demo(&self.input.corpus, DEMO_CORPUS, "--corpus")?;
+        let queries_path = given_or_demo(&self.log.queries, DEMO_QUERIES, "--queries")?;
         let corpus = if texts {
             read_documents(&corpus_path, &doc_options)
         } else {
