@@ -46,7 +46,7 @@ fn vocabulary(forms: usize, rng: &mut ChaCha8Rng) -> Data {
             roots.push(root);
         }
     }
-    let mut vocabulary = Vocabulary::new();
+    let mut counted = Vec::new();
     for (i, root) in roots.iter().enumerate() {
         let last = if i % 10 == 0 {
             format!("{root}ation")
@@ -60,13 +60,16 @@ fn vocabulary(forms: usize, rng: &mut ChaCha8Rng) -> Data {
             format!("{root}ing"),
             last,
         ] {
-            let stats = FormStats {
-                documents: rng.random_range(0..50),
-                searches: rng.random_range(0..20),
-            };
-            vocabulary.add_form(&form, stats);
+            let (documents, searches) = (rng.random_range(0..50), rng.random_range(0..20));
+            counted.push(FormStats {
+                form,
+                documents,
+                searches,
+                queries: u64::from(searches > 0),
+            });
         }
     }
+    let vocabulary = Vocabulary::from_forms(counted);
     Data { roots, vocabulary }
 }
 
@@ -168,7 +171,7 @@ fn run_lint(s: &Setup) -> (LintReport, Duration) {
 /// The naive stem side-effect scan: for every word of every rule term, key the whole
 /// vocabulary again and collect the other forms with the same key.
 fn naive_side_effects(a: &Analyzer, v: &Vocabulary) -> usize {
-    let forms = v.sorted();
+    let forms = &v.forms;
     let mut hits = 0;
     for rule in &a.ruleset().synonyms {
         for term in rule.terms() {
@@ -178,9 +181,7 @@ fn naive_side_effects(a: &Analyzer, v: &Vocabulary) -> usize {
                 };
                 hits += forms
                     .iter()
-                    .filter(|(form, _)| {
-                        *form != token.form && a.key(form).as_deref() == Some(&*key)
-                    })
+                    .filter(|f| f.form != token.form && a.key(&f.form).as_deref() == Some(&*key))
                     .count();
             }
         }

@@ -14,8 +14,8 @@ use std::time::Instant;
 
 use lexdelta::Analyzer;
 use lexdelta::audit::collisions::key_forms;
-use lexdelta::audit::vocabulary::{DocumentCounts, Vocabulary};
 use lexdelta::corpus::{DocOptions, Document, read_documents};
+use lexdelta::corpus::{DocumentCounts, Vocabulary};
 
 fn main() {
     let args: Vec<String> = std::env::args().skip(1).collect();

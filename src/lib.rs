@@ -49,7 +49,9 @@
 //!
 //! - [`rules`]: the rule-file format, loading with spans, diagnostics, git revisions.
 //! - [`analysis`]: the analyzer, one file per stage, the trace, the tantivy adapter.
-//! - [`corpus`]: documents and query logs.
+//! - [`corpus`]: the one input layer: documents (JSON Lines, CSV, a directory of text
+//!   files), query logs, judgments, each format read from the content; named fields
+//!   checked against the documents; the corpus vocabulary every command shares.
 //! - [`lint`]: the term graph and one check per file: contradictions and hazards in rules.
 //! - [`import`]: published irregular-form lists (WordNet) as lemma overrides.
 //! - [`metrics`]: precision, recall, reciprocal rank, AP, nDCG, RBO, significance.

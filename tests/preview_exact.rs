@@ -270,6 +270,7 @@ fn corpus_strategy() -> impl Strategy<Value = Corpus> {
             },
         ],
         fingerprint: format!("{docs:?}"),
+        warnings: Vec::new(),
         documents: docs
             .into_iter()
             .enumerate()

@@ -30,8 +30,8 @@
 use serde::Serialize;
 
 use super::morphy::Morphy;
-use super::vocabulary::{FormStats, Vocabulary};
 use crate::analysis::Analyzer;
+use crate::corpus::{FormStats, Vocabulary};
 
 /// A form of a group, with what WordNet says its base forms are.
 #[derive(Clone, Debug, PartialEq, Serialize)]

@@ -14,6 +14,5 @@ pub mod postings;
 pub mod report;
 pub mod stemcheck;
 pub mod suggest;
-pub mod vocabulary;
 
 pub use error::AuditError;

@@ -11,11 +11,11 @@ use serde::Serialize;
 use super::collisions::{self, Collision, KeyIndex};
 use super::effect::{self, Effect};
 use super::morphy::Morphy;
-use super::postings::Postings;
+use super::postings::FormLists;
 use super::suggest::{self, Suggestion};
-use super::vocabulary::{DocumentCounts, Vocabulary};
 use crate::analysis::Analyzer;
 use crate::corpus::{Corpus, CorpusError, DocOptions, QueryLog};
+use crate::corpus::{DocumentCounts, Vocabulary};
 
 /// How much to compute.
 #[derive(Clone, Debug)]
@@ -71,8 +71,8 @@ pub fn collision_report(
 ) -> CollisionReport {
     let threads = options.threads.max(1);
     let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, log, threads);
-    let postings = |wanted: &FxHashSet<String>| -> Result<Postings, Infallible> {
-        Ok(Postings::collect(
+    let postings = |wanted: &FxHashSet<String>| -> Result<FormLists, Infallible> {
+        Ok(FormLists::collect(
             analyzer.surface(),
             &corpus.documents,
             wanted,
@@ -109,7 +109,7 @@ pub fn collision_report_from_file(
     let threads = options.threads.max(1);
     let vocabulary = Vocabulary::from_counts(analyzer.surface(), counts, log);
     let postings = |wanted: &FxHashSet<String>| {
-        Postings::collect_file(analyzer.surface(), path, doc_options, wanted, threads)
+        FormLists::collect_file(analyzer.surface(), path, doc_options, wanted, threads)
     };
     let source = path.display().to_string();
     assemble(
@@ -124,7 +124,7 @@ fn assemble<E>(
     log: Option<&QueryLog>,
     morphy: &Morphy,
     options: &CollisionOptions,
-    postings: impl FnOnce(&FxHashSet<String>) -> Result<Postings, E>,
+    postings: impl FnOnce(&FxHashSet<String>) -> Result<FormLists, E>,
 ) -> Result<CollisionReport, E> {
     let threads = options.threads.max(1);
     let found = collisions::find(analyzer, &vocabulary, morphy, threads);

@@ -8,10 +8,10 @@ use lexdelta::atomic::write_file;
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::report::{CollisionOptions, collision_report_from_file};
 use lexdelta::audit::suggest::rule_file;
-use lexdelta::audit::vocabulary::DocumentCounts;
-use lexdelta::corpus::{DocOptions, read_queries};
+use lexdelta::corpus::DocumentCounts;
 use lexdelta::report::{ColorChoice, Style, collisions_csv, collisions_json, collisions_text};
 
+use super::input::{CorpusArgs, QueryArgs, input_error, warn};
 use super::{CliError, print};
 
 /// Rank the corpus's conflation groups that merge words WordNet gives different base
@@ -24,12 +24,10 @@ pub struct Args {
     /// The ruleset directory.
     #[arg(long, default_value = "rules")]
     rules: PathBuf,
-    /// The documents (JSON Lines, CSV, or a directory of .txt/.md files).
-    #[arg(long)]
-    corpus: PathBuf,
-    /// A query log: adds traffic to the risk and shows each suggestion's effect.
-    #[arg(long)]
-    queries: Option<PathBuf>,
+    #[command(flatten)]
+    input: CorpusArgs,
+    #[command(flatten)]
+    log: QueryArgs,
     /// The WordNet 3.0 `dict` directory.
     #[arg(long, default_value = "/usr/share/wordnet")]
     wordnet: PathBuf,
@@ -74,19 +72,18 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     }
     // The corpus is streamed, never held in memory: counted now (so its errors come
     // first), read again later only for the postings of the shown groups.
-    let doc_options = DocOptions::default();
-    let counts = DocumentCounts::from_file(
-        analyzer.surface(),
-        &args.corpus,
-        &doc_options,
-        options.threads,
-    )?;
-    let log = args.queries.as_deref().map(read_queries).transpose()?;
+    let corpus = args.input.required("by collisions")?;
+    let doc_options = args.input.doc_options(None, 0)?;
+    let counts =
+        DocumentCounts::from_file(analyzer.surface(), corpus, &doc_options, options.threads)
+            .map_err(input_error)?;
+    warn(&counts.warnings);
+    let log = args.log.read_given()?;
     let morphy = Morphy::load(&args.wordnet)?;
     let report = collision_report_from_file(
         &analyzer,
         counts,
-        &args.corpus,
+        corpus,
         &doc_options,
         log.as_ref(),
         &morphy,

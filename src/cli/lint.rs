@@ -1,17 +1,17 @@
 //! `lexdelta lint`: contradictions and hazards in a ruleset, before anyone runs it.
 
-use std::fs::File;
-use std::io::{BufRead, BufReader};
-use std::path::{Path, PathBuf};
+use std::path::PathBuf;
 use std::process::ExitCode;
 
-use lexdelta::analysis::{Analyzer, SurfaceStage};
+use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
+use lexdelta::corpus::read_documents;
 use lexdelta::lint::{LintConfig, LintInput, Vocabulary, checks, lint};
 use lexdelta::report::{ColorChoice, Style, lint_dot, lint_json, lint_sarif, lint_text};
 use lexdelta::rules::{self, Level};
 use lexdelta::severity::Severity;
 
+use super::input::{CorpusArgs, QueryArgs, input_error, warn};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -49,13 +49,10 @@ pub struct Args {
     /// The ruleset directory.
     #[arg(long, value_name = "DIR", default_value = "rules")]
     rules: PathBuf,
-    /// Documents as JSON Lines with `title` and `body` fields: their surface forms and
-    /// document frequencies form the vocabulary.
-    #[arg(long, value_name = "FILE")]
-    corpus: Option<PathBuf>,
-    /// A query log as JSON Lines `{"query": ..., "count": ...}`: adds search traffic.
-    #[arg(long, value_name = "FILE")]
-    queries: Option<PathBuf>,
+    #[command(flatten)]
+    input: CorpusArgs,
+    #[command(flatten)]
+    log: QueryArgs,
     /// The ruleset before the change, for the revision check.
     #[arg(long, value_name = "DIR")]
     base: Option<PathBuf>,
@@ -153,11 +150,20 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let ruleset = rules::load_sources(&args.rules.display().to_string(), sources.clone())?;
     let analyzer = Analyzer::new(ruleset)?;
     let base = args.base.as_deref().map(rules::load_dir).transpose()?;
-    let vocabulary = read_vocabulary(
-        analyzer.surface(),
-        args.corpus.as_deref(),
-        args.queries.as_deref(),
-    )?;
+    // With a corpus or a query log, their surface forms and frequencies form the
+    // vocabulary the corpus-aware checks judge rules against.
+    let corpus = match &args.input.corpus {
+        Some(path) => {
+            let corpus =
+                read_documents(path, &args.input.doc_options(None, 0)?).map_err(input_error)?;
+            warn(&corpus.warnings);
+            Some(corpus)
+        }
+        None => None,
+    };
+    let log = args.log.read_given()?;
+    let vocabulary = (corpus.is_some() || log.is_some())
+        .then(|| Vocabulary::from_corpus(analyzer.surface(), corpus.as_ref(), log.as_ref()));
     let config = LintConfig::with_levels(args.levels.iter().map(|(n, l)| (n.as_str(), *l)))?;
     let report = lint(
         &analyzer,
@@ -182,90 +188,4 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     } else {
         ExitCode::SUCCESS
     })
-}
-
-/// A corpus or query-log line that could not be read.
-#[derive(Debug, thiserror::Error)]
-enum InputError {
-    #[error("cannot read {path}: {source}")]
-    Io {
-        path: String,
-        #[source]
-        source: std::io::Error,
-    },
-    #[error("{path}:{line}: {message}")]
-    Line {
-        path: String,
-        line: usize,
-        message: String,
-    },
-}
-
-#[derive(serde::Deserialize)]
-struct DocumentLine {
-    #[serde(default)]
-    title: String,
-    #[serde(default)]
-    body: String,
-}
-
-#[derive(serde::Deserialize)]
-struct QueryLine {
-    query: String,
-    #[serde(default = "one")]
-    count: u64,
-}
-
-fn one() -> u64 {
-    1
-}
-
-/// The vocabulary of a corpus (title and body of each document) and a query log, or `None`
-/// when neither is given. Kept small and separate so the corpus readers can replace it.
-fn read_vocabulary(
-    surface: &SurfaceStage,
-    corpus: Option<&Path>,
-    queries: Option<&Path>,
-) -> Result<Option<Vocabulary>, InputError> {
-    if corpus.is_none() && queries.is_none() {
-        return Ok(None);
-    }
-    let mut vocabulary = Vocabulary::new();
-    if let Some(path) = corpus {
-        for_each_line(path, |line: DocumentLine| {
-            vocabulary.add_document(surface, &format!("{}\n\n{}", line.title, line.body));
-        })?;
-    }
-    if let Some(path) = queries {
-        for_each_line(path, |line: QueryLine| {
-            vocabulary.add_query(surface, &line.query, line.count);
-        })?;
-    }
-    Ok(Some(vocabulary))
-}
-
-/// Reads JSON Lines one object at a time (blank lines skipped), with file:line on errors.
-fn for_each_line<T: serde::de::DeserializeOwned>(
-    path: &Path,
-    mut f: impl FnMut(T),
-) -> Result<(), InputError> {
-    let shown = path.display().to_string();
-    let io = |source| InputError::Io {
-        path: shown.clone(),
-        source,
-    };
-    let reader = BufReader::new(File::open(path).map_err(io)?);
-    for (n, line) in reader.lines().enumerate() {
-        let line = line.map_err(io)?;
-        if line.trim().is_empty() {
-            continue;
-        }
-        let value = serde_json::from_str(&line).map_err(|e| InputError::Line {
-            path: shown.clone(),
-            line: n + 1,
-            message: e.to_string(),
-        })?;
-        f(value);
-    }
-    Ok(())
 }

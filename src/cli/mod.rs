@@ -2,6 +2,7 @@
 
 mod collisions;
 mod import;
+mod input;
 mod lint;
 mod preview;
 mod review;

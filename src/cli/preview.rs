@@ -99,6 +99,9 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         judged: loaded.judged,
     };
     let outcome = preview::run_opened(input, indexes, &options)?;
+    for w in &outcome.report.warnings {
+        eprintln!("lexdelta: warning: {w}");
+    }
     if let (Some(dir), Some(runs)) = (&args.runs, &outcome.runs) {
         std::fs::create_dir_all(dir)
             .map_err(|e| CliError(format!("{}: {e}", dir.display()), false))?;

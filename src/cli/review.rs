@@ -13,6 +13,7 @@ use lexdelta::review::{self, GateLimits, ReviewInput};
 use lexdelta::rules::{self, Ruleset};
 use lexdelta::severity::Severity;
 
+use super::input::{finite, share};
 use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
 use super::{CliError, print};
 
@@ -69,13 +70,13 @@ pub struct Args {
     #[arg(long, value_name = "N")]
     max_emptied_searches: Option<u64>,
     /// Gate: at most this share (0–1) of searches may lose documents.
-    #[arg(long, value_name = "SHARE")]
+    #[arg(long, value_name = "SHARE", value_parser = share)]
     max_lost_traffic_share: Option<f64>,
     /// Gate: mean nDCG may drop by at most this much.
-    #[arg(long, value_name = "DROP")]
+    #[arg(long, value_name = "DROP", value_parser = finite)]
     max_ndcg_drop: Option<f64>,
     /// Gate: no judged query's nDCG may drop by more than this.
-    #[arg(long, value_name = "DROP")]
+    #[arg(long, value_name = "DROP", value_parser = finite)]
     max_query_ndcg_drop: Option<f64>,
     /// Gate: fail on lint findings at or above this severity.
     #[arg(long, value_name = "SEVERITY", value_parser = parse_severity)]
@@ -149,6 +150,9 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         &bar(),
     )?;
     let report = outcome.report;
+    for w in &report.preview.warnings {
+        eprintln!("lexdelta: warning: {w}");
+    }
     let limits = Limits {
         queries: args.limit,
         docs: args.docs,

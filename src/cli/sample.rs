@@ -6,14 +6,15 @@ use std::path::PathBuf;
 
 use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
 use lexdelta::corpus::{
-    Corpus, DocOptions, FieldSpec, QueryLog, Sample, read_documents, read_documents_without_texts,
-    read_queries,
+    Corpus, DocOptions, QueryLog, Sample, read_documents, read_documents_without_texts,
+    read_judgments,
 };
 use lexdelta::index::Progress;
 use lexdelta::metrics::{self, RandomizationTest};
 use lexdelta::preview::{self, JudgedSet, MatchMode, PreviewOptions, Ranking, Scoring};
 
 use super::CliError;
+use super::input::{CorpusArgs, QueryArgs, finite, input_error, warn};
 
 #[derive(Debug, Clone, clap::Args)]
 pub struct SampleArgs {
@@ -21,31 +22,20 @@ pub struct SampleArgs {
     /// command takes rulesets, `rules` as base and `demo-corpus/proposed` as head).
     #[arg(long)]
     pub demo: bool,
-    /// Documents: JSON Lines, CSV with a header, or a directory of .txt/.md files.
-    #[arg(long, value_name = "FILE", required_unless_present = "demo")]
-    pub corpus: Option<PathBuf>,
-    /// Queries: one per line, TSV `query<TAB>count`, or a JSON Lines query log (.jsonl).
-    #[arg(long, value_name = "FILE", required_unless_present = "demo")]
-    pub queries: Option<PathBuf>,
+    #[command(flatten)]
+    pub input: CorpusArgs,
+    #[command(flatten)]
+    pub log: QueryArgs,
     /// Relevance judgments: TREC qrels (with --judged-queries) or CSV
-    /// (`query_id,query,doc_id,relevance`).
+    /// (`query_id,query,doc_id,relevance`), told apart by content.
     #[arg(long, value_name = "FILE")]
     pub judgments: Option<PathBuf>,
     /// The text of each judged query, `QID<TAB>text` (for qrels judgments).
     #[arg(long, value_name = "FILE")]
     pub judged_queries: Option<PathBuf>,
-    /// A searched field with its weight, `name` or `name^weight`; repeat for several.
-    #[arg(long = "field", value_name = "NAME[^W]", default_values = ["title^2", "body"])]
-    pub fields: Vec<String>,
-    /// The document id field.
-    #[arg(long, default_value = "id")]
-    pub id_field: String,
-    /// The field shown as a document's title.
-    #[arg(long, default_value = "title")]
-    pub title_field: String,
     /// Keep a random sample of the documents: a count (1000) or a fraction (0.1).
-    #[arg(long, value_name = "N")]
-    pub sample: Option<String>,
+    #[arg(long, value_name = "N", value_parser = parse_sample)]
+    pub sample: Option<Sample>,
     /// Seed of the sample's random draw.
     #[arg(long, default_value_t = 42)]
     pub sample_seed: u64,
@@ -56,10 +46,10 @@ pub struct SampleArgs {
     #[arg(long, value_enum, default_value_t = Ranking::Bm25)]
     pub ranking: Ranking,
     /// BM25 k1.
-    #[arg(long, default_value_t = 1.2)]
+    #[arg(long, default_value_t = 1.2, value_parser = finite)]
     pub k1: f64,
     /// BM25 b.
-    #[arg(long, default_value_t = 0.75)]
+    #[arg(long, default_value_t = 0.75, value_parser = finite)]
     pub b: f64,
     /// Documents shown per ranking, and compared by RBO and the outcome labels.
     #[arg(long, default_value_t = 10)]
@@ -74,7 +64,7 @@ pub struct SampleArgs {
     #[arg(long, default_value_t = RandomizationTest::default().seed)]
     pub seed: u64,
     /// RBO persistence p, between 0 and 1.
-    #[arg(long, default_value_t = metrics::DEFAULT_RBO_P)]
+    #[arg(long, default_value_t = metrics::DEFAULT_RBO_P, value_parser = finite)]
     pub rbo_p: f64,
     /// Where surface indexes are cached.
     #[arg(long, value_name = "DIR", default_value = ".lexdelta-cache")]
@@ -121,20 +111,7 @@ impl SampleArgs {
             .mode
             .parse()
             .map_err(|e| CliError(format!("--match: {e}"), false))?;
-        let fields = self
-            .fields
-            .iter()
-            .map(|f| {
-                FieldSpec::parse(f).map_err(|e| CliError(format!("--field {f:?}: {e}"), false))
-            })
-            .collect::<Result<Vec<_>, _>>()?;
-        let doc_options = DocOptions {
-            id_field: self.id_field.clone(),
-            title_field: self.title_field.clone(),
-            fields,
-            sample: self.sample.as_deref().map(parse_sample).transpose()?,
-            seed: self.sample_seed,
-        };
+        let doc_options = self.input.doc_options(self.sample, self.sample_seed)?;
         let options = PreviewOptions {
             scoring: Scoring {
                 ranking: self.ranking,
@@ -155,36 +132,29 @@ impl SampleArgs {
             },
         };
         options.validate()?;
-        let (corpus_path, queries_path) = match (&self.corpus, &self.queries) {
-            (Some(c), Some(q)) => (c.clone(), q.clone()),
-            _ => (PathBuf::from(DEMO_CORPUS), PathBuf::from(DEMO_QUERIES)),
+        // Given inputs win; --demo fills in the ones not given.
+        let given_or_demo = |given: &Option<PathBuf>, demo: &str, option: &str| {
+            given
+                .clone()
+                .or_else(|| self.demo.then(|| PathBuf::from(demo)))
+                .ok_or_else(|| CliError(format!("{option} is required (or --demo)"), false))
         };
+        let corpus_path = given_or_demo(&self.input.corpus, DEMO_CORPUS, "--corpus")?;
+        let queries_path = given_or_demo(&self.log.queries, DEMO_QUERIES, "--queries")?;
         let corpus = if texts {
-            read_documents(&corpus_path, &doc_options)?
+            read_documents(&corpus_path, &doc_options)
         } else {
-            read_documents_without_texts(&corpus_path, &doc_options)?
-        };
-        let log = read_queries(&queries_path)?;
+            read_documents_without_texts(&corpus_path, &doc_options)
+        }
+        .map_err(input_error)?;
+        warn(&corpus.warnings);
+        let log = self.log.read(&queries_path)?;
         let judged = match &self.judgments {
             None => None,
-            Some(path) if path.extension().is_some_and(|e| e == "csv") => {
-                let (judgments, texts) = metrics::read_csv_judgments(path)?;
-                Some(JudgedSet { judgments, texts })
-            }
             Some(path) => {
-                let Some(texts_path) = &self.judged_queries else {
-                    return Err(CliError(
-                        format!(
-                            "{}: TREC qrels name queries by id; pass --judged-queries with each id's text",
-                            path.display()
-                        ),
-                        false,
-                    ));
-                };
-                Some(JudgedSet {
-                    judgments: metrics::read_trec_qrels(path)?,
-                    texts: metrics::read_queries(texts_path)?,
-                })
+                let (judgments, texts) =
+                    read_judgments(path, self.judged_queries.as_deref()).map_err(input_error)?;
+                Some(JudgedSet { judgments, texts })
             }
         };
         Ok(Loaded {
@@ -203,7 +173,7 @@ impl Loaded {
     pub fn read_texts(&mut self) -> Result<(), CliError> {
         // The text-free copy goes first: the two need not be held at once.
         self.corpus.documents = Vec::new();
-        self.corpus = read_documents(&self.corpus_path, &self.doc_options)?;
+        self.corpus = read_documents(&self.corpus_path, &self.doc_options).map_err(input_error)?;
         Ok(())
     }
 }
@@ -239,18 +209,6 @@ pub fn bar() -> Bar {
     Bar(bar)
 }
 
-fn parse_sample(text: &str) -> Result<Sample, CliError> {
-    let bad = || {
-        CliError(
-            format!("--sample {text:?}: give a count (1000) or a fraction (0.1)"),
-            false,
-        )
-    };
-    if let Ok(n) = text.parse::<usize>() {
-        return Ok(Sample::Count(n));
-    }
-    match text.parse::<f64>() {
-        Ok(f) if f > 0.0 && f <= 1.0 => Ok(Sample::Fraction(f)),
-        _ => Err(bad()),
-    }
+fn parse_sample(text: &str) -> Result<Sample, String> {
+    text.parse()
 }

@@ -7,11 +7,11 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::audit::concepts::{read_groups, wordnet_groups};
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::stemcheck::{ConceptGroups, stemcheck};
-use lexdelta::audit::vocabulary::Vocabulary;
-use lexdelta::corpus::{DocOptions, read_documents};
+use lexdelta::corpus::{DocumentCounts, Vocabulary};
 use lexdelta::report::stemcheck_text;
 use lexdelta::rules::load_dir;
 
+use super::input::{CorpusArgs, input_error, warn};
 use super::{CliError, print};
 
 /// Measure under-stemming (UI), over-stemming (OI), their ratio (SW) and the error rate
@@ -32,9 +32,8 @@ pub struct Args {
     /// Derive concept groups from WordNet over the --corpus vocabulary.
     #[arg(long, requires = "corpus")]
     wordnet_groups: bool,
-    /// The documents whose vocabulary --wordnet-groups uses.
-    #[arg(long)]
-    corpus: Option<PathBuf>,
+    #[command(flatten)]
+    input: CorpusArgs,
     /// The WordNet 3.0 `dict` directory.
     #[arg(long, default_value = "/usr/share/wordnet")]
     wordnet: PathBuf,
@@ -68,7 +67,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         ),
     ];
     let surface = analyzers[2].1.surface();
-    let (groups, source) = match (&args.groups, &args.corpus) {
+    let (groups, source) = match (&args.groups, &args.input.corpus) {
         (Some(path), _) => (read_groups(path, surface)?, path.display().to_string()),
         (None, Some(corpus)) => (
             corpus_groups(&args, corpus, &analyzers[2].1)?,
@@ -101,10 +100,14 @@ fn corpus_groups(
     corpus: &std::path::Path,
     analyzer: &Analyzer,
 ) -> Result<ConceptGroups, CliError> {
-    let corpus = read_documents(corpus, &DocOptions::default())?;
-    let morphy = Morphy::load(&args.wordnet)?;
+    // The corpus is streamed and only its forms counted, as `collisions` reads it.
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
-    let vocabulary = Vocabulary::build(analyzer.surface(), &corpus.documents, None, threads);
+    let options = args.input.doc_options(None, 0)?;
+    let counts = DocumentCounts::from_file(analyzer.surface(), corpus, &options, threads)
+        .map_err(input_error)?;
+    warn(&counts.warnings);
+    let morphy = Morphy::load(&args.wordnet)?;
+    let vocabulary = Vocabulary::from_counts(analyzer.surface(), counts, None);
     let (groups, _skipped) =
         wordnet_groups(vocabulary.forms.iter().map(|f| f.form.as_str()), &morphy);
     Ok(groups)

@@ -3,14 +3,15 @@
 use std::collections::HashSet;
 use std::fs;
 use std::io::{BufRead, BufReader};
-use std::path::{Path, PathBuf};
+use std::path::Path;
 
 use rand::SeedableRng;
 use rand::seq::index::sample;
 use rayon::prelude::*;
 use serde::Serialize;
 
-use super::CorpusError;
+use super::fields::Presence;
+use super::{CorpusError, CorpusWarning, DocumentFormat, directory};
 
 /// A text field to search, with its weight in ranking.
 #[derive(Clone, Debug, PartialEq, Serialize)]
@@ -49,12 +50,37 @@ pub enum Sample {
     Fraction(f64),
 }
 
+impl std::str::FromStr for Sample {
+    type Err = String;
+
+    /// A count of documents (`1000`, at least 1) or a fraction of them (`0.1`, above 0 and
+    /// at most 1).
+    fn from_str(text: &str) -> Result<Sample, String> {
+        let text = text.trim();
+        if let Ok(n) = text.parse::<usize>() {
+            return if n == 0 {
+                Err("a sample of 0 documents holds nothing; give a count of 1 or more".into())
+            } else {
+                Ok(Sample::Count(n))
+            };
+        }
+        match text.parse::<f64>() {
+            Ok(f) if f.is_finite() && f > 0.0 && f <= 1.0 => Ok(Sample::Fraction(f)),
+            _ => Err(format!(
+                "{text:?} is neither a count (1000) nor a fraction above 0 and at most 1 (0.1)"
+            )),
+        }
+    }
+}
+
 /// Which fields make up a document, and how much of the corpus to read.
 #[derive(Clone, Debug, Serialize)]
 pub struct DocOptions {
     pub id_field: String,
     /// The title field is shown in reports; it is searched only if listed in `fields`.
-    pub title_field: String,
+    /// `None` takes `title` when the documents have it (and no title otherwise); a field
+    /// named here must exist.
+    pub title_field: Option<String>,
     pub fields: Vec<FieldSpec>,
     pub sample: Option<Sample>,
     pub seed: u64,
@@ -64,7 +90,7 @@ impl Default for DocOptions {
     fn default() -> Self {
         DocOptions {
             id_field: "id".into(),
-            title_field: "title".into(),
+            title_field: None,
             fields: vec![
                 FieldSpec {
                     name: "title".into(),
@@ -98,6 +124,8 @@ pub struct Corpus {
     pub documents: Vec<Document>,
     /// A hash of the input bytes and the options that shaped the documents.
     pub fingerprint: String,
+    /// Fields few documents have: worth a look, not an error.
+    pub warnings: Vec<CorpusWarning>,
 }
 
 impl Corpus {
@@ -127,8 +155,13 @@ impl Corpus {
     }
 }
 
-/// Reads documents from `path`: a `.csv` file, a directory of `.txt`/`.md` files, or JSON
-/// Lines (any other file).
+/// Reads documents from `path`: JSON Lines, CSV with a header, or a directory of
+/// `.txt`/`.md` files, told apart by content ([`DocumentFormat::detect`]).
+///
+/// Every field the options name is checked against the whole corpus (before sampling): a
+/// field no document has is an error that lists the fields the documents do have; a field
+/// under 1% of the documents have is a warning in [`Corpus::warnings`]. A corpus (or a
+/// sample) without documents is an error.
 pub fn read_documents(path: &Path, options: &DocOptions) -> Result<Corpus, CorpusError> {
     read(path, options, true)
 }
@@ -142,35 +175,73 @@ pub fn read_documents_without_texts(
     read(path, options, false)
 }
 
+/// What the options looked like when caches were first keyed by them: the fingerprint
+/// hashes this shape, so a cache stays valid across versions that add options.
+#[derive(Serialize)]
+struct HashedOptions<'a> {
+    id_field: &'a str,
+    title_field: &'a str,
+    fields: &'a [FieldSpec],
+    sample: Option<Sample>,
+    seed: u64,
+}
+
+impl DocOptions {
+    /// The title field's name: the one given, or `title`.
+    pub fn title_name(&self) -> &str {
+        self.title_field.as_deref().unwrap_or("title")
+    }
+
+    fn hashed(&self) -> String {
+        serde_json::to_string(&HashedOptions {
+            id_field: &self.id_field,
+            title_field: self.title_name(),
+            fields: &self.fields,
+            sample: self.sample,
+            seed: self.seed,
+        })
+        .unwrap_or_default()
+    }
+}
+
 fn read(path: &Path, options: &DocOptions, texts: bool) -> Result<Corpus, CorpusError> {
     let mut hasher = blake3::Hasher::new();
-    hasher.update(
-        serde_json::to_string(options)
-            .unwrap_or_default()
-            .as_bytes(),
-    );
-    let is_csv = path.extension().and_then(|e| e.to_str()) == Some("csv");
-    let documents = if path.is_dir() {
-        read_directory(path, options, &mut hasher)?
-    } else if !is_csv {
-        stream_json_lines(path, options, texts, &mut hasher)?
-    } else {
-        let bytes = fs::read(path).map_err(|source| CorpusError::Io {
-            path: path.to_path_buf(),
-            source,
-        })?;
-        hasher.update(&bytes);
-        let text = String::from_utf8(bytes).map_err(|e| CorpusError::Invalid {
-            path: path.to_path_buf(),
-            message: format!(
-                "not UTF-8 text (invalid byte at offset {})",
-                e.utf8_error().valid_up_to()
-            ),
-        })?;
-        read_csv(path, &text, options)?
+    hasher.update(options.hashed().as_bytes());
+    let format = DocumentFormat::detect(path)?;
+    let mut presence = Presence::new(options);
+    let documents = match format {
+        DocumentFormat::Directory => read_directory(path, options, &mut hasher, &mut presence)?,
+        DocumentFormat::JsonLines => {
+            stream_json_lines(path, options, texts, &mut hasher, &mut presence)?
+        }
+        DocumentFormat::Csv => {
+            let bytes = fs::read(path).map_err(|source| CorpusError::Io {
+                path: path.to_path_buf(),
+                source,
+            })?;
+            hasher.update(&bytes);
+            let text = String::from_utf8(bytes).map_err(|e| {
+                let valid = &e.as_bytes()[..e.utf8_error().valid_up_to()];
+                CorpusError::Parse {
+                    path: path.to_path_buf(),
+                    line: valid.iter().filter(|&&b| b == b'\n').count() + 1,
+                    message: "not UTF-8 text".into(),
+                }
+            })?;
+            read_csv(path, &text, options, &mut presence)?
+        }
     };
+    let warnings = presence.check(path, format, options)?;
     check_unique_ids(path, &documents)?;
+    let total = documents.len();
     let mut documents = apply_sample(documents, options);
+    if documents.is_empty() {
+        return Err(CorpusError::Empty {
+            path: path.to_path_buf(),
+            what: "documents",
+            why: format!("the sample keeps none of the {total} documents"),
+        });
+    }
     if !texts {
         documents.iter_mut().for_each(|d| d.texts = Vec::new());
     }
@@ -179,6 +250,7 @@ fn read(path: &Path, options: &DocOptions, texts: bool) -> Result<Corpus, Corpus
         fields: options.fields.clone(),
         documents,
         fingerprint: hasher.finalize().to_hex().to_string(),
+        warnings,
     })
 }
 
@@ -195,6 +267,7 @@ fn stream_json_lines(
     options: &DocOptions,
     texts: bool,
     hasher: &mut blake3::Hasher,
+    presence: &mut Presence,
 ) -> Result<Vec<Document>, CorpusError> {
     let io = |source| CorpusError::Io {
         path: path.to_path_buf(),
@@ -226,56 +299,78 @@ fn stream_json_lines(
             || {
                 lines
                     .par_iter()
-                    .map(|&(i, at, line)| document_of_line(path, i, at, line, options, texts))
+                    .map(|&(i, at, line)| document_of_line(path, i, at, line, options))
                     .collect::<Vec<_>>()
             },
         );
         for document in parsed {
-            out.extend(document?);
+            if let Some((i, mut document, has_id)) = document? {
+                presence.add(&document, has_id, i + 1);
+                if !texts {
+                    document.texts = Vec::new();
+                }
+                out.push(document);
+            }
         }
         first_line += lines.len();
         offset += block.len();
     }
+    if out.is_empty() {
+        let empty = fs::metadata(path).map(|m| m.len() == 0).unwrap_or(false);
+        return Err(CorpusError::Empty {
+            path: path.to_path_buf(),
+            what: "documents",
+            why: if empty {
+                "the file is empty".into()
+            } else {
+                "the file holds only blank lines".into()
+            },
+        });
+    }
     Ok(out)
 }
 
-/// The document on line `i` (0-based) starting at byte `offset` of the file; `None` for a
-/// blank line.
+/// The document on line `i` (0-based) starting at byte `offset` of the file, and whether
+/// it has an id; `None` for a blank line.
 fn document_of_line(
     path: &Path,
     i: usize,
     offset: usize,
     line: &[u8],
     options: &DocOptions,
-    texts: bool,
-) -> Result<Option<Document>, CorpusError> {
-    let text = std::str::from_utf8(line).map_err(|e| CorpusError::Invalid {
+) -> Result<Option<(usize, Document, bool)>, CorpusError> {
+    let text = std::str::from_utf8(line).map_err(|e| CorpusError::Parse {
         path: path.to_path_buf(),
+        line: i + 1,
         message: format!(
-            "not UTF-8 text (invalid byte at offset {}, line {})",
-            offset + e.valid_up_to(),
-            i + 1
+            "not UTF-8 text (invalid byte at column {}, byte offset {} of the file)",
+            e.valid_up_to() + 1,
+            offset + e.valid_up_to()
         ),
     })?;
     let text = text.strip_suffix('\n').unwrap_or(text);
     let text = text.strip_suffix('\r').unwrap_or(text);
+    // A byte-order mark some editors write before the first line is not part of the JSON.
+    let text = if i == 0 {
+        text.strip_prefix('\u{feff}').unwrap_or(text)
+    } else {
+        text
+    };
     if text.trim().is_empty() {
         return Ok(None);
     }
-    let mut document = parse_json_line(path, i, text, options)?;
-    if !texts {
-        document.texts = Vec::new();
-    }
-    Ok(Some(document))
+    let (document, has_id) = parse_json_line(path, i, text, options)?;
+    Ok(Some((i, document, has_id)))
 }
 
-/// One JSON Lines document; `i` is the 0-based line (errors name the 1-based one).
+/// One JSON Lines document, and whether it has an id (without one, the id is empty); `i`
+/// is the 0-based line (errors name the 1-based one).
 pub(super) fn parse_json_line(
     path: &Path,
     i: usize,
     line: &str,
     options: &DocOptions,
-) -> Result<Document, CorpusError> {
+) -> Result<(Document, bool), CorpusError> {
     let parse = |message: String| CorpusError::Parse {
         path: path.to_path_buf(),
         line: i + 1,
@@ -293,24 +388,28 @@ pub(super) fn parse_json_line(
             other => Some(other.to_string()),
         }
     };
-    let id = field(&options.id_field).ok_or_else(|| {
-        parse(format!(
-            "no `{}` field (choose the id field with --id-field)",
-            options.id_field
-        ))
-    })?;
-    Ok(Document {
-        title: field(&options.title_field).unwrap_or_default(),
-        texts: options
-            .fields
-            .iter()
-            .map(|f| field(&f.name).unwrap_or_default())
-            .collect(),
-        id,
-    })
+    let id = field(&options.id_field);
+    let has_id = id.is_some();
+    Ok((
+        Document {
+            title: field(options.title_name()).unwrap_or_default(),
+            texts: options
+                .fields
+                .iter()
+                .map(|f| field(&f.name).unwrap_or_default())
+                .collect(),
+            id: id.unwrap_or_default(),
+        },
+        has_id,
+    ))
 }
 
-fn read_csv(path: &Path, text: &str, options: &DocOptions) -> Result<Vec<Document>, CorpusError> {
+fn read_csv(
+    path: &Path,
+    text: &str,
+    options: &DocOptions,
+    presence: &mut Presence,
+) -> Result<Vec<Document>, CorpusError> {
     let mut reader = csv::Reader::from_reader(text.as_bytes());
     let headers = reader
         .headers()
@@ -320,13 +419,13 @@ fn read_csv(path: &Path, text: &str, options: &DocOptions) -> Result<Vec<Documen
             message: e.to_string(),
         })?
         .clone();
-    let column = |name: &str| headers.iter().position(|h| h == name);
-    let id_col = column(&options.id_field).ok_or_else(|| CorpusError::Parse {
-        path: path.to_path_buf(),
-        line: 1,
-        message: format!("no `{}` column in the header", options.id_field),
-    })?;
-    let title_col = column(&options.title_field);
+    let column = |name: &str| {
+        headers
+            .iter()
+            .position(|h| h.trim_start_matches('\u{feff}') == name)
+    };
+    let id_col = column(&options.id_field);
+    let title_col = column(options.title_name());
     let cols: Vec<Option<usize>> = options.fields.iter().map(|f| column(&f.name)).collect();
     let mut out = Vec::new();
     for record in reader.records() {
@@ -335,37 +434,45 @@ fn read_csv(path: &Path, text: &str, options: &DocOptions) -> Result<Vec<Documen
             line: e.position().map_or(0, |p| p.line() as usize),
             message: e.to_string(),
         })?;
+        let line = record.position().map_or(0, |p| p.line() as usize);
         let get = |c: Option<usize>| c.and_then(|c| record.get(c)).unwrap_or("").to_string();
-        out.push(Document {
-            id: get(Some(id_col)),
+        let document = Document {
+            id: get(id_col),
             title: get(title_col),
             texts: cols.iter().map(|c| get(*c)).collect(),
+        };
+        presence.add(&document, id_col.is_some(), line);
+        out.push(document);
+    }
+    if out.is_empty() {
+        return Err(CorpusError::Empty {
+            path: path.to_path_buf(),
+            what: "documents",
+            why: if headers.iter().all(str::is_empty) {
+                "the file is empty".into()
+            } else {
+                "a CSV header and no rows".into()
+            },
         });
     }
     Ok(out)
 }
 
-/// Each file is a document: its path is the id, its first line the title, the rest the
-/// body. The text goes to the first field and the title to a field named like the title.
+/// Each file is a document: its path below the directory is its `id`, its first line
+/// (`#` marks dropped) its `title`, the rest its `body`.
 fn read_directory(
     dir: &Path,
     options: &DocOptions,
     hasher: &mut blake3::Hasher,
+    presence: &mut Presence,
 ) -> Result<Vec<Document>, CorpusError> {
-    let mut files = Vec::new();
-    collect_files(dir, &mut files)?;
-    files.sort();
+    let files = directory::text_files(dir)?;
     let mut out = Vec::new();
-    for file in files {
+    for (id, file) in files {
         let text = fs::read_to_string(&file).map_err(|source| CorpusError::Io {
             path: file.clone(),
             source,
         })?;
-        let id = file
-            .strip_prefix(dir)
-            .unwrap_or(&file)
-            .to_string_lossy()
-            .replace('\\', "/");
         hasher
             .update(id.as_bytes())
             .update(&[0])
@@ -373,44 +480,28 @@ fn read_directory(
             .update(&[0]);
         let (first, rest) = text.split_once('\n').unwrap_or((&text, ""));
         let title = first.trim_start_matches('#').trim().to_string();
-        let texts = options
-            .fields
-            .iter()
-            .map(|f| {
-                if f.name == options.title_field {
-                    title.clone()
-                } else {
-                    rest.to_string()
-                }
-            })
-            .collect();
-        out.push(Document { id, title, texts });
+        let value = |name: &str| match name {
+            "id" => id.clone(),
+            "title" => title.clone(),
+            "body" => rest.to_string(),
+            _ => String::new(),
+        };
+        let document = Document {
+            id: value(&options.id_field),
+            title: value(options.title_name()),
+            texts: options.fields.iter().map(|f| value(&f.name)).collect(),
+        };
+        presence.add(&document, options.id_field == "id", out.len() + 1);
+        out.push(document);
+    }
+    if out.is_empty() {
+        return Err(CorpusError::Empty {
+            path: dir.to_path_buf(),
+            what: "documents",
+            why: "no .txt or .md files in the directory".into(),
+        });
     }
     Ok(out)
-}
-
-fn collect_files(dir: &Path, out: &mut Vec<PathBuf>) -> Result<(), CorpusError> {
-    let entries = fs::read_dir(dir).map_err(|source| CorpusError::Io {
-        path: dir.to_path_buf(),
-        source,
-    })?;
-    for entry in entries {
-        let path = entry
-            .map_err(|source| CorpusError::Io {
-                path: dir.to_path_buf(),
-                source,
-            })?
-            .path();
-        if path.is_dir() {
-            collect_files(&path, out)?;
-        } else if matches!(
-            path.extension().and_then(|e| e.to_str()),
-            Some("txt" | "md")
-        ) {
-            out.push(path);
-        }
-    }
-    Ok(())
 }
 
 fn check_unique_ids(path: &Path, documents: &[Document]) -> Result<(), CorpusError> {
@@ -509,6 +600,19 @@ mod tests {
     }
 
     #[test]
+    fn a_byte_order_mark_before_the_first_document_is_skipped() {
+        let dir = tempfile::tempdir().unwrap();
+        let p = dir.path().join("d.jsonl");
+        fs::write(
+            &p,
+            "\u{feff}{\"id\":\"a\",\"title\":\"T\",\"body\":\"B\"}\n",
+        )
+        .unwrap();
+        let corpus = read_documents(&p, &DocOptions::default()).unwrap();
+        assert_eq!(corpus.documents[0].id, "a");
+    }
+
+    #[test]
     fn bad_lines_name_their_line_and_samples_are_seeded() {
         let dir = tempfile::tempdir().unwrap();
         let p = dir.path().join("d.jsonl");
@@ -517,7 +621,7 @@ mod tests {
         assert!(err.to_string().contains("d.jsonl:2:"), "{err}");
 
         let lines: String = (0..100)
-            .map(|i| format!("{{\"id\":\"d{i}\",\"body\":\"x\"}}\n"))
+            .map(|i| format!("{{\"id\":\"d{i}\",\"title\":\"t\",\"body\":\"x\"}}\n"))
             .collect();
         fs::write(&p, lines).unwrap();
         let o = DocOptions {

@@ -18,45 +18,65 @@ use std::sync::Mutex;
 
 use serde::de::{self, DeserializeSeed, Deserializer, IgnoredAny, MapAccess, Visitor};
 
-use super::CorpusError;
 use super::documents::{DocOptions, Document, parse_json_line, read_documents};
+use super::fields::Presence;
+use super::{CorpusError, CorpusWarning, DocumentFormat};
 
 /// How many bytes a thread takes from the file at a time (then on to the line's end).
 const BLOCK: usize = 1 << 20;
+
+/// What [`for_each_document`] gives back.
+#[derive(Debug)]
+pub struct Walk<S> {
+    /// The threads' states, in no particular order.
+    pub states: Vec<S>,
+    /// How many documents were walked.
+    pub documents: usize,
+    /// What [`read_documents`] would warn about for the same file and options.
+    pub warnings: Vec<CorpusWarning>,
+}
 
 /// Calls `each(state, number, texts)` for every document of `path`, on `threads` threads,
 /// each with its own state from `init`. `texts` are the document's fields in
 /// `options.fields` order (`""` when missing). `number` is unique per document and
 /// increases in file order (the 0-based line for JSON Lines, the index otherwise); a
-/// document is seen by one thread only. Returns the states (in no particular order) and
-/// the number of documents.
+/// document is seen by one thread only. The checks and errors are [`read_documents`]'s.
 pub fn for_each_document<S, I, F>(
     path: &Path,
     options: &DocOptions,
     threads: usize,
     init: I,
     each: F,
-) -> Result<(Vec<S>, usize), CorpusError>
+) -> Result<Walk<S>, CorpusError>
 where
     S: Send,
     I: Fn() -> S + Sync,
     F: Fn(&mut S, usize, &[&str]) + Sync,
 {
-    let streamable = options.sample.is_none()
-        && !path.is_dir()
-        && path.extension().and_then(|e| e.to_str()) != Some("csv");
-    if streamable {
+    let format = DocumentFormat::detect(path)?;
+    if options.sample.is_none() && format == DocumentFormat::JsonLines {
         let file = File::open(path).map_err(|source| CorpusError::Io {
             path: path.to_path_buf(),
             source,
         })?;
-        if let Some(done) = stream(file, path, options, threads, &init, &each) {
-            return Ok(done);
+        if let Some((states, presence)) = stream(file, path, options, threads, &init, &each)
+            && !presence.has_error(options)
+            && let Ok(warnings) = presence.check(path, format, options)
+        {
+            return Ok(Walk {
+                states,
+                documents: presence.documents(),
+                warnings,
+            });
         }
     }
     let corpus = read_documents(path, options)?;
     let states = for_each_in_memory(&corpus.documents, threads, init, each);
-    Ok((states, corpus.documents.len()))
+    Ok(Walk {
+        states,
+        documents: corpus.documents.len(),
+        warnings: corpus.warnings,
+    })
 }
 
 /// The same walk over documents already in memory (`number` is the index).
@@ -147,7 +167,7 @@ fn memchr_count(bytes: &[u8]) -> usize {
 /// What one thread keeps besides the caller's state.
 struct Worker<S> {
     state: S,
-    documents: usize,
+    presence: Presence,
     /// Hashes of the document ids, to find a repeated id.
     ids: Vec<u64>,
     failed: bool,
@@ -161,7 +181,7 @@ fn stream<S, I, F, R>(
     threads: usize,
     init: &I,
     each: &F,
-) -> Option<(Vec<S>, usize)>
+) -> Option<(Vec<S>, Presence)>
 where
     S: Send,
     I: Fn() -> S + Sync,
@@ -176,6 +196,7 @@ where
     let names: Vec<&str> = options.fields.iter().map(|f| f.name.as_str()).collect();
     let wanted = Wanted {
         id: &options.id_field,
+        title: options.title_name(),
         fields: &names,
     };
     let workers: Vec<Worker<S>> = std::thread::scope(|scope| {
@@ -193,8 +214,14 @@ where
     if workers.iter().any(|w| w.failed) {
         return None;
     }
-    let documents = workers.iter().map(|w| w.documents).sum();
-    let mut ids: Vec<u64> = Vec::with_capacity(documents);
+    let mut presence = Presence::new(options);
+    for w in &workers {
+        presence.merge(&w.presence);
+    }
+    if presence.documents() == 0 {
+        return None;
+    }
+    let mut ids: Vec<u64> = Vec::with_capacity(presence.documents());
     let mut states = Vec::with_capacity(workers.len());
     for w in workers {
         ids.extend(w.ids);
@@ -205,7 +232,7 @@ where
         // A repeated id (or, very rarely, two ids with one hash): `read_documents` decides.
         return None;
     }
-    Some((states, documents))
+    Some((states, presence))
 }
 
 fn work<S, I, F, R>(
@@ -223,7 +250,7 @@ where
 {
     let mut worker = Worker {
         state: init(),
-        documents: 0,
+        presence: Presence::new(options),
         ids: Vec::new(),
         failed: false,
     };
@@ -248,28 +275,39 @@ where
                 continue;
             }
             let number = first + k;
+            let line = if number == 0 {
+                line.strip_prefix('\u{feff}').unwrap_or(line)
+            } else {
+                line
+            };
             let slow;
             let id: &str;
+            let has_title;
             let mut texts: Vec<&str> = Vec::with_capacity(wanted.fields.len());
+            let n = wanted.fields.len();
             match parse_fast(line, wanted, &mut fields) {
                 Some(()) if fields[0].is_some() => {
                     id = fields[0].as_deref().unwrap_or_default();
-                    texts.extend(fields[1..].iter().map(|f| f.as_deref().unwrap_or("")));
+                    texts.extend(fields[1..=n].iter().map(|f| f.as_deref().unwrap_or("")));
+                    has_title = fields[n + 1].as_deref().is_some_and(|t| !t.is_empty());
                 }
                 _ => match parse_json_line(path, number, line, options) {
-                    Ok(doc) => {
+                    Ok((doc, true)) => {
                         slow = doc;
                         id = &slow.id;
+                        has_title = !slow.title.is_empty();
                         texts.extend(slow.texts.iter().map(String::as_str));
                     }
-                    Err(_) => {
+                    _ => {
                         worker.failed = true;
                         return worker;
                     }
                 },
             }
             worker.ids.push(hasher.hash_one(id));
-            worker.documents += 1;
+            worker
+                .presence
+                .add_texts(true, number + 1, has_title, texts.iter().copied());
             each(&mut worker.state, number, &texts);
         }
     }
@@ -285,14 +323,15 @@ fn lines(text: &str) -> impl Iterator<Item = &str> {
         })
 }
 
-/// The names the fast parser keeps: the id, then the searched fields.
+/// The names the fast parser keeps: the id, the searched fields, the title.
 struct Wanted<'a> {
     id: &'a str,
+    title: &'a str,
     fields: &'a [&'a str],
 }
 
-/// Parses one line into `out` (`out[0]` the id, then the fields; `None` when missing or
-/// null). `None` when the line needs the general parser: not an object of strings where
+/// Parses one line into `out` (`out[0]` the id, then the fields, then the title; `None`
+/// when missing or null). `None` when the line needs the general parser: not an object of strings where
 /// it matters, or not JSON at all.
 fn parse_fast<'l>(
     line: &'l str,
@@ -300,7 +339,7 @@ fn parse_fast<'l>(
     out: &mut Vec<Option<Cow<'l, str>>>,
 ) -> Option<()> {
     out.clear();
-    out.resize(wanted.fields.len() + 1, None);
+    out.resize(wanted.fields.len() + 2, None);
     let mut de = serde_json::Deserializer::from_str(line);
     Line { wanted, out }.deserialize(&mut de).ok()?;
     de.end().ok()
@@ -327,8 +366,11 @@ impl<'de> Visitor<'de> for Line<'_, '_, 'de> {
         while let Some(key) = map.next_key::<Text<'de>>()? {
             let key = key.0.as_deref();
             // A name may be both the id and a field; every slot it names gets the value.
-            let names =
-                || std::iter::once(self.wanted.id).chain(self.wanted.fields.iter().copied());
+            let names = || {
+                std::iter::once(self.wanted.id)
+                    .chain(self.wanted.fields.iter().copied())
+                    .chain(std::iter::once(self.wanted.title))
+            };
             if !names().any(|n| Some(n) == key) {
                 map.next_value::<Ignore>()?;
                 continue;
@@ -433,7 +475,7 @@ mod tests {
     use super::*;
 
     fn streamed(path: &Path, threads: usize) -> Result<Vec<(usize, Vec<String>)>, String> {
-        let (parts, n) = for_each_document(
+        let walk = for_each_document(
             path,
             &DocOptions::default(),
             threads,
@@ -443,9 +485,9 @@ mod tests {
             },
         )
         .map_err(|e| e.to_string())?;
-        let mut all: Vec<_> = parts.into_iter().flatten().collect();
+        let mut all: Vec<_> = walk.states.into_iter().flatten().collect();
         all.sort();
-        assert_eq!(all.len(), n);
+        assert_eq!(all.len(), walk.documents);
         Ok(all)
     }
 
@@ -455,7 +497,7 @@ mod tests {
         let p = dir.path().join("d.jsonl");
         std::fs::write(
             &p,
-            "{\"id\":\"a\",\"title\":\"Caf\\u00e9 \\\"x\\\"\",\"body\":null,\"n\":[1,{\"k\":2.5}]}\r\n\
+            "\u{feff}{\"id\":\"a\",\"title\":\"Caf\\u00e9 \\\"x\\\"\",\"body\":null,\"n\":[1,{\"k\":2.5}]}\r\n\
              \n   \n{\"body\":\"b1\",\"id\":7,\"title\":3}\n{\"id\":\"c\",\"body\":\"x\",\"body\":\"y\"}",
         )
         .unwrap();

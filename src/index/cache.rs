@@ -160,6 +160,7 @@ mod tests {
                 texts: vec!["Prams on trams".into()],
             }],
             fingerprint: "fp".into(),
+            warnings: Vec::new(),
         }
     }
 

@@ -43,10 +43,11 @@ pub mod vocabulary;
 
 use serde::Serialize;
 
+pub use crate::corpus::{FormStats, Vocabulary, VocabularySummary};
 pub use checks::{CheckInfo, Needs};
 pub use graph::TermGraph;
 pub use terms::{RuleTerm, Word};
-pub use vocabulary::{FormStats, KeyedVocabulary, Vocabulary, VocabularySummary};
+pub use vocabulary::KeyedVocabulary;
 
 use crate::analysis::{Analyzer, RuleRef};
 use crate::rules::{Level, Origin, Ruleset};

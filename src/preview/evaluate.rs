@@ -62,6 +62,38 @@ impl Engine<'_> {
             .collect()
     }
 
+    /// Whether any planned query matches a document on either side: a changed query that
+    /// matches settles it; otherwise queries are run until one matches (all of them only
+    /// when none does).
+    pub fn finds_anything(
+        &self,
+        plan: &QueryPlan,
+        changes: &[QueryChange],
+    ) -> Result<bool, PreviewError> {
+        if changes
+            .iter()
+            .any(|c| c.matches_before > 0 || c.matches_after > 0)
+        {
+            return Ok(true);
+        }
+        let found = (0..plan.queries.len())
+            .into_par_iter()
+            .map(|i| {
+                let mut hits = Vec::new();
+                for side in [&self.base, &self.head] {
+                    let query = side.analyzer.analyze_query(&plan.queries[i].text);
+                    self.run_side(side, &query, &mut hits)?;
+                    if !hits.is_empty() {
+                        return Ok(true);
+                    }
+                }
+                Ok(false)
+            })
+            .find_any(|r: &Result<bool, PreviewError>| !matches!(r, Ok(false)))
+            .transpose()?;
+        Ok(found.is_some())
+    }
+
     /// Hits in document order; only the top k is ever ranked.
     fn run_side(
         &self,

@@ -403,6 +403,12 @@ pub fn run_opened(
         fold::worst_first(&mut changes);
     }
 
+    // Silence is a failure: a preview in which no query finds anything says so.
+    let warnings = if engine.finds_anything(&plan, &folded.changes)? {
+        Vec::new()
+    } else {
+        vec![PreviewWarning::NothingFound]
+    };
     let change = &keyed.change;
     let report = PreviewReport {
         notice: EVIDENCE_NOTICE.to_string(),
@@ -439,6 +445,7 @@ pub fn run_opened(
         summary: folded.summary,
         queries: changes,
         quality,
+        warnings,
     };
     Ok(PreviewOutcome {
         report,

@@ -69,6 +69,29 @@ pub struct PreviewReport {
     /// first whatever their traffic ([`QueryChange::urgency`]), then by searches.
     pub queries: Vec<QueryChange>,
     pub quality: Option<Quality>,
+    /// What makes the preview say less than it seems to (left out of JSON when empty).
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub warnings: Vec<PreviewWarning>,
+}
+
+/// A preview that ran but may not mean what its figures suggest.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum PreviewWarning {
+    /// No query matched any document, before or after the change: nothing was searched.
+    NothingFound,
+}
+
+impl std::fmt::Display for PreviewWarning {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            PreviewWarning::NothingFound => {
+                "no query matched any document, before or after the change: nothing was \
+                 searched, so every figure is empty (are the searched fields the ones that \
+                 hold the text, and is the query log for this corpus?)"
+            }
+        })
+    }
 }
 
 #[derive(Clone, Debug, Serialize)]

@@ -58,7 +58,7 @@ pub fn render(report: &ReviewReport) -> String {
 }
 
 fn gate(out: &mut String, r: &ReviewReport) {
-    if r.gate.limits.is_empty() {
+    if r.gate.limits.is_empty() && r.gate.passed() {
         out.push_str("<p class=\"muted\">No gate limits are set.</p>\n");
     } else if r.gate.passed() {
         out.push_str("<p class=\"passed\"><strong>Gate passed</strong>: every limit holds.</p>\n");

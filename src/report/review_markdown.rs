@@ -44,7 +44,7 @@ pub fn escape(text: &str) -> String {
 
 fn verdict(out: &mut String, r: &ReviewReport) {
     let _ = writeln!(out, "## lexdelta review: `{}` → `{}`\n", r.base, r.head);
-    if r.gate.limits.is_empty() {
+    if r.gate.limits.is_empty() && r.gate.passed() {
         out.push_str("**No gate limits are set** (add a `gate:` section to the base ruleset).\n\n");
     } else if r.gate.passed() {
         out.push_str("**Gate: passed** — every limit holds.\n\n");

@@ -16,7 +16,7 @@ pub fn render(report: &ReviewReport, style: Style, limits: Limits) -> String {
         report.base,
         report.head
     );
-    if report.gate.limits.is_empty() {
+    if report.gate.limits.is_empty() && report.gate.passed() {
         let _ = writeln!(
             out,
             "  gate     {}",

@@ -65,6 +65,8 @@ pub struct GateInput {
     pub query_ndcg: Vec<(String, u64, f64, f64)>,
     /// Lint findings per severity.
     pub lint: Vec<(Severity, usize)>,
+    /// No query matched any document on either side: nothing was searched.
+    pub nothing_found: bool,
 }
 
 #[derive(Clone, Debug, PartialEq, Serialize)]
@@ -85,9 +87,18 @@ impl GateOutcome {
     }
 }
 
-/// Checks every limit; all breaches are reported, not only the first.
+/// Checks every limit; all breaches are reported, not only the first. A preview in which
+/// nothing was found fails whatever the limits: no limit can be judged on it.
 pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
     let mut breaches = Vec::new();
+    if input.nothing_found {
+        breaches.push(Breach {
+            limit: "nothing_found",
+            reason: "no query matched any document, before or after the change: nothing was \
+                     searched, so no limit can pass (check the searched fields and the query log)"
+                .into(),
+        });
+    }
     if let Some(max) = limits.max_emptied_searches {
         let mut over: Vec<&(String, u64)> =
             input.emptied.iter().filter(|(_, n)| *n > max).collect();
@@ -181,7 +192,21 @@ mod tests {
             ndcg: Some(("nDCG@10".into(), 0.66, 0.64)),
             query_ndcg: vec![("access pass".into(), 120, 0.71, 0.11)],
             lint: vec![(Severity::Warning, 3)],
+            nothing_found: false,
         }
+    }
+
+    /// Nothing searched is a breach even with no limits set, and beside any other.
+    #[test]
+    fn nothing_found_fails_the_gate_without_any_limit() {
+        let nothing = GateInput {
+            nothing_found: true,
+            ..GateInput::default()
+        };
+        let out = check(&GateLimits::default(), &nothing);
+        assert!(!out.passed());
+        assert_eq!(out.breaches[0].limit, "nothing_found");
+        assert!(check(&GateLimits::default(), &input()).passed());
     }
 
     #[test]

@@ -102,15 +102,7 @@ pub fn review(
 
 /// The head's view of the sample's vocabulary, for lint's corpus-aware checks.
 fn vocabulary_of(analyzer: &Analyzer, corpus: &Corpus, queries: &QueryLog) -> Vocabulary {
-    let mut vocabulary = Vocabulary::new();
-    let surface = analyzer.surface();
-    for doc in &corpus.documents {
-        vocabulary.add_document(surface, &doc.texts.join("\n\n"));
-    }
-    for q in &queries.queries {
-        vocabulary.add_query(surface, &q.query, q.count);
-    }
-    vocabulary
+    Vocabulary::from_corpus(analyzer.surface(), Some(corpus), Some(queries))
 }
 
 fn gate_input(preview: &PreviewReport, lint: &LintReport) -> gate::GateInput {
@@ -167,5 +159,8 @@ fn gate_input(preview: &PreviewReport, lint: &LintReport) -> gate::GateInput {
             (Severity::Warning, lint.counts.warning),
             (Severity::Info, lint.counts.info),
         ],
+        nothing_found: preview
+            .warnings
+            .contains(&preview::PreviewWarning::NothingFound),
     }
 }

@@ -39,9 +39,9 @@ pub fn run(cx: &Context, out: &mut Vec<Finding>) {
         let matched: Vec<FormCount> = vocabulary
             .sorted()
             .iter()
-            .filter(|(form, _)| regex.is_match(form))
-            .map(|(form, stats)| FormCount {
-                form: form.to_string(),
+            .filter(|stats| regex.is_match(&stats.form))
+            .map(|stats| FormCount {
+                form: stats.form.clone(),
                 documents: stats.documents,
                 searches: stats.searches,
                 via: None,

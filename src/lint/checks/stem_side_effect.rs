@@ -108,22 +108,20 @@ fn other_forms(
 ) -> Vec<FormCount> {
     let candidates = vocabulary.forms_with_key(key);
     // The common case: the word alone has its key.
-    if candidates.iter().all(|(form, _)| *form == word.surface) {
+    if candidates.iter().all(|f| f.form == word.surface) {
         return Vec::new();
     }
     let inflections = Inflections::of(language, &word.surface);
     let mut forms: Vec<FormCount> = candidates
         .iter()
-        .filter(|(form, _)| {
-            !inflections.includes(form) && !declared_form_of(cx, form, &word.surface)
-        })
-        .map(|(form, stats)| FormCount {
-            form: form.to_string(),
+        .filter(|f| !inflections.includes(&f.form) && !declared_form_of(cx, &f.form, &word.surface))
+        .map(|stats| FormCount {
+            form: stats.form.clone(),
             documents: stats.documents,
             searches: stats.searches,
             via: cx
                 .analyzer
-                .lemma_of(form)
+                .lemma_of(&stats.form)
                 .map(|(_, r)| cx.analyzer.rule_label(RuleRef::Lemma(r))),
         })
         .collect();

@@ -1,5 +1,7 @@
-//! The corpus vocabulary: every distinct surface form with its document frequency and the
-//! query traffic that mentions it, built in one pass.
+//! The corpus vocabulary every command shares (lint, collisions, stemcheck, review): every
+//! distinct surface form with its document frequency and the query traffic that mentions
+//! it, built in one pass. Only the surface stage (steps 1–3) runs while counting, so one
+//! vocabulary serves every ruleset with the same surface settings.
 //!
 //! Speed matters (a million documents hold about 140,000 distinct forms): documents are
 //! split across threads, each thread interns forms in its own `FxHashMap` and counts a
@@ -11,10 +13,13 @@ use std::path::Path;
 
 use rustc_hash::FxHashMap;
 
-use crate::analysis::SurfaceStage;
-use crate::corpus::{
-    CorpusError, DocOptions, Document, QueryLog, for_each_document, for_each_in_memory,
+use serde::Serialize;
+
+use super::{
+    Corpus, CorpusError, CorpusWarning, DocOptions, Document, QueryLog, for_each_document,
+    for_each_in_memory,
 };
+use crate::analysis::SurfaceStage;
 
 /// One distinct surface form.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -37,6 +42,14 @@ pub struct Vocabulary {
     pub searches: u64,
 }
 
+/// Totals, for reports.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Serialize)]
+pub struct VocabularySummary {
+    pub forms: usize,
+    pub documents: u64,
+    pub searches: u64,
+}
+
 /// Per-thread counts: form → (document frequency, last document counted).
 type Counts = FxHashMap<Box<str>, (u64, usize)>;
 
@@ -45,6 +58,8 @@ type Counts = FxHashMap<Box<str>, (u64, usize)>;
 pub struct DocumentCounts {
     merged: Merged,
     documents: usize,
+    /// The reader's warnings (fields few documents have).
+    pub warnings: Vec<CorpusWarning>,
 }
 
 impl DocumentCounts {
@@ -56,6 +71,7 @@ impl DocumentCounts {
         DocumentCounts {
             merged: merge(tables),
             documents: documents.len(),
+            warnings: Vec::new(),
         }
     }
 
@@ -67,7 +83,7 @@ impl DocumentCounts {
         options: &DocOptions,
         threads: usize,
     ) -> Result<Self, CorpusError> {
-        let (tables, documents) = for_each_document(
+        let walk = for_each_document(
             path,
             options,
             threads,
@@ -75,13 +91,103 @@ impl DocumentCounts {
             |counts, i, texts| count_document(surface, counts, i, texts),
         )?;
         Ok(DocumentCounts {
-            merged: merge(tables),
-            documents,
+            merged: merge(walk.states),
+            documents: walk.documents,
+            warnings: walk.warnings,
         })
     }
 }
 
 impl Vocabulary {
+    /// The vocabulary of a corpus (every searched field of each document) and a query log;
+    /// either may be missing.
+    pub fn from_corpus(
+        surface: &SurfaceStage,
+        corpus: Option<&Corpus>,
+        log: Option<&QueryLog>,
+    ) -> Self {
+        let documents = corpus.map_or(&[][..], |c| &c.documents[..]);
+        Self::build(surface, documents, log, default_threads())
+    }
+
+    /// Counts documents (each one text) and queries (each a text and how many times it was
+    /// searched), through the surface stage.
+    pub fn from_texts<D, Q, S, T>(surface: &SurfaceStage, documents: D, queries: Q) -> Self
+    where
+        D: IntoIterator<Item = S>,
+        S: AsRef<str>,
+        Q: IntoIterator<Item = (T, u64)>,
+        T: AsRef<str>,
+    {
+        let documents: Vec<Document> = documents
+            .into_iter()
+            .enumerate()
+            .map(|(i, text)| Document {
+                id: i.to_string(),
+                title: String::new(),
+                texts: vec![text.as_ref().to_string()],
+            })
+            .collect();
+        let log = QueryLog::from_entries(
+            "",
+            queries.into_iter().map(|(text, count)| super::QueryEntry {
+                query: text.as_ref().to_string(),
+                count,
+                clicks: Default::default(),
+            }),
+        );
+        Self::build(surface, &documents, Some(&log), 1)
+    }
+
+    /// A vocabulary from forms counted elsewhere (a repeated form's counts are added), with
+    /// no document or query totals.
+    pub fn from_forms(forms: impl IntoIterator<Item = FormStats>) -> Self {
+        let mut forms: Vec<FormStats> = forms.into_iter().collect();
+        forms.sort_by(|a, b| a.form.cmp(&b.form));
+        forms.dedup_by(|next, kept| {
+            let same = next.form == kept.form;
+            if same {
+                kept.documents = kept.documents.saturating_add(next.documents);
+                kept.searches = kept.searches.saturating_add(next.searches);
+                kept.queries = kept.queries.saturating_add(next.queries);
+            }
+            same
+        });
+        Vocabulary {
+            forms,
+            ..Vocabulary::default()
+        }
+    }
+
+    /// The form's counts, if the vocabulary has it.
+    pub fn get(&self, form: &str) -> Option<&FormStats> {
+        self.forms
+            .binary_search_by(|f| f.form.as_str().cmp(form))
+            .ok()
+            .map(|i| &self.forms[i])
+    }
+
+    pub fn contains(&self, form: &str) -> bool {
+        self.get(form).is_some()
+    }
+
+    /// Number of distinct surface forms.
+    pub fn len(&self) -> usize {
+        self.forms.len()
+    }
+
+    pub fn is_empty(&self) -> bool {
+        self.forms.is_empty()
+    }
+
+    pub fn summary(&self) -> VocabularySummary {
+        VocabularySummary {
+            forms: self.forms.len(),
+            documents: self.documents as u64,
+            searches: self.searches,
+        }
+    }
+
     /// Builds the vocabulary of `documents` (and of `queries`, when given) on `threads`
     /// threads.
     pub fn build(
@@ -106,6 +212,7 @@ impl Vocabulary {
         let DocumentCounts {
             mut merged,
             documents,
+            ..
         } = counts;
         let (queries_n, searches) = match queries {
             Some(log) => {
@@ -131,6 +238,10 @@ impl Vocabulary {
             searches,
         }
     }
+}
+
+fn default_threads() -> usize {
+    std::thread::available_parallelism().map_or(1, |n| n.get())
 }
 
 /// Counts each form of one document once, through the "last document seen" slot.
@@ -178,7 +289,7 @@ fn add_queries(surface: &SurfaceStage, log: &QueryLog, merged: &mut Merged) {
         });
         for form in seen {
             let slot = merged.entry(form.into_boxed_str()).or_default();
-            slot.1 += entry.count;
+            slot.1 = slot.1.saturating_add(entry.count);
             slot.2 += 1;
         }
     }
@@ -196,6 +307,24 @@ mod tests {
             title: String::new(),
             texts: vec![text.into()],
         }
+    }
+
+    #[test]
+    fn documents_count_once_and_queries_carry_their_traffic() {
+        let surface = SurfaceStage::from_pipeline(&Pipeline::default());
+        let v = Vocabulary::from_texts(
+            &surface,
+            ["University pass, university card", "The universe"],
+            [("university pass", 40), ("pass", 2)],
+        );
+        let university = v.get("university").unwrap();
+        assert_eq!((university.documents, university.searches), (1, 40));
+        assert_eq!(v.get("pass").unwrap().searches, 42);
+        assert_eq!(v.get("universe").unwrap().documents, 1);
+        assert!(!v.contains("universes"));
+        assert_eq!(v.summary().documents, 2);
+        assert_eq!(v.summary().searches, 42);
+        assert!(v.forms.windows(2).all(|w| w[0].form < w[1].form));
     }
 
     #[test]
