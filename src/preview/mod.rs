@@ -404,7 +404,7 @@ pub fn run_opened(
     }
 
     // Silence is a failure: a preview in which no query finds anything says so.
-    let warnings = if engine.finds_anything(&plan, &folded.changes)? {
+    let warnings = if engine.finds_anything(&plan, &changes)? {
         Vec::new()
     } else {
         vec![PreviewWarning::NothingFound]
