@@ -48,7 +48,7 @@ fn collisions_json(extra: &[&str]) -> serde_json::Value {
 #[test]
 fn planted_over_truncations_rank_in_the_top_ten() {
     require_wordnet();
-    let report = collisions_json(&["--top", "10"]);
+    let report = collisions_json(&["--limit", "10"]);
     let keys: Vec<&str> = report["collisions"]
         .as_array()
         .unwrap()
@@ -69,7 +69,7 @@ fn planted_over_truncations_rank_in_the_top_ten() {
 #[test]
 fn transit_is_split_by_exempting_the_other_side() {
     require_wordnet();
-    let report = collisions_json(&["--top", "30"]);
+    let report = collisions_json(&["--limit", "30"]);
     let transit = report["collisions"]
         .as_array()
         .unwrap()

@@ -225,7 +225,7 @@ fn the_live_ruleset_passes_the_default_gate() {
         QUERIES,
     ]);
     assert_eq!(run.code, 0, "{}{}", run.stdout, run.stderr);
-    let strict = lexdelta(&["lint", "--rules", "rules", "--fail-on", "info"]);
+    let strict = lexdelta(&["lint", "--rules", "rules", "--fail-on-lint", "info"]);
     assert_eq!(strict.code, 1, "info findings exist (stopwords in members)");
 }
 

@@ -9,16 +9,17 @@ use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::report::{CollisionOptions, collision_report_from_file};
 use lexdelta::audit::suggest::rule_file;
 use lexdelta::corpus::DocumentCounts;
-use lexdelta::report::{ColorChoice, Style, collisions_csv, collisions_json, collisions_text};
+use lexdelta::report::{Style, collisions_csv, collisions_json, collisions_text};
 
 use super::input::{CorpusArgs, QueryArgs, input_error, warn};
+use super::shared::{ColorArg, Format, LimitArg, formats, not_offered};
 use super::{CliError, print};
 
 /// Rank the corpus's conflation groups that merge words WordNet gives different base
 /// forms, with a verified exemption or lemma override that splits each one.
 #[derive(Debug, clap::Args)]
 #[command(
-    after_help = "Examples:\n  lexdelta collisions --corpus demo-corpus/documents.jsonl --queries demo-corpus/queries.jsonl\n  lexdelta collisions --corpus docs.jsonl --top 50 --format csv > groups.csv\n  lexdelta collisions --corpus docs.jsonl --queries q.jsonl --accept univers,transit --write rules/split-groups.yaml\n\nRisk = (W - heaviest meaning's weight) * m/(m-1), where a meaning's weight is its forms'\ndocument frequencies plus the searches that mention them, W the group's total and m its\nnumber of meanings. Every suggestion is checked by recompiling the analyzer with it.\n--write never replaces an existing file without --force."
+    after_help = "Examples:\n  lexdelta collisions --corpus demo-corpus/documents.jsonl --queries demo-corpus/queries.jsonl\n  lexdelta collisions --corpus docs.jsonl --limit 50 --format csv > groups.csv\n  lexdelta collisions --corpus docs.jsonl --queries q.jsonl --accept univers,transit --write rules/split-groups.yaml\n\nRisk = (W - heaviest meaning's weight) * m/(m-1), where a meaning's weight is its forms'\ndocument frequencies plus the searches that mention them, W the group's total and m its\nnumber of meanings. Every suggestion is checked by recompiling the analyzer with it.\n--write never replaces an existing file without --force."
 )]
 pub struct Args {
     /// The ruleset directory.
@@ -31,15 +32,13 @@ pub struct Args {
     /// The WordNet 3.0 `dict` directory.
     #[arg(long, default_value = "/usr/share/wordnet")]
     wordnet: PathBuf,
-    /// Show this many groups.
-    #[arg(long, default_value_t = 20)]
-    top: usize,
+    #[command(flatten)]
+    limit: LimitArg,
     /// Output format.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
+    #[arg(long, default_value = "text", value_parser = formats(&[Format::Text, Format::Json, Format::Csv]))]
     format: Format,
-    /// Colour: auto, always or never.
-    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
-    color: ColorChoice,
+    #[command(flatten)]
+    color: ColorArg,
     /// Write the shown groups' suggestions (or only --accept's) as a new rule file.
     #[arg(long)]
     write: Option<PathBuf>,
@@ -54,17 +53,10 @@ pub struct Args {
     threads: Option<usize>,
 }
 
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum Format {
-    Text,
-    Json,
-    Csv,
-}
-
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let analyzer = Analyzer::load(&args.rules)?;
     let mut options = CollisionOptions {
-        top: Some(args.top),
+        top: Some(args.limit.value),
         ..CollisionOptions::default()
     };
     if let Some(n) = args.threads {
@@ -93,9 +85,10 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         write_rules(&report, path, &args.accept, args.force)?;
     }
     let rendered = match args.format {
-        Format::Text => collisions_text::render(&report, Style::for_stdout(args.color)),
+        Format::Text => collisions_text::render(&report, Style::for_stdout(args.color.choice)),
         Format::Json => collisions_json::render(&report),
         Format::Csv => collisions_csv::render(&report),
+        other => return Err(not_offered(other)),
     };
     print(&rendered)?;
     Ok(ExitCode::SUCCESS)
@@ -110,7 +103,7 @@ fn write_rules(
     for key in accept {
         if !report.collisions.iter().any(|c| &c.collision.key == key) {
             return Err(CliError(
-                format!("--accept {key:?}: no shown group has that key (raise --top?)"),
+                format!("--accept {key:?}: no shown group has that key (raise --limit?)"),
                 false,
             ));
         }

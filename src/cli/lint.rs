@@ -7,11 +7,12 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
 use lexdelta::corpus::read_documents;
 use lexdelta::lint::{LintConfig, LintInput, Vocabulary, checks, lint};
-use lexdelta::report::{ColorChoice, Style, lint_dot, lint_json, lint_sarif, lint_text};
+use lexdelta::report::{Style, lint_dot, lint_json, lint_sarif, lint_text};
 use lexdelta::rules::{self, Level};
 use lexdelta::severity::Severity;
 
 use super::input::{CorpusArgs, QueryArgs, input_error, warn};
+use super::shared::{ColorArg, Format, formats, not_offered, severity};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -30,7 +31,7 @@ Examples:
   Draw the groups that have findings:
     lexdelta lint --graph groups.dot && dot -Tsvg groups.dot > groups.svg
   Be stricter or quieter for one run:
-    lexdelta lint --fail-on warning --level dead-rule=off --level set-bridge=error
+    lexdelta lint --fail-on-lint warning --level dead-rule=off --level set-bridge=error
   Learn about the checks:
     lexdelta lint --list-checks
     lexdelta lint --explain stem-side-effect
@@ -39,7 +40,7 @@ Levels: a check starts at its default severity; the ruleset's `lint.checks` chan
 then --level, then a rule's own `lint:` override (which carries a reason) for findings
 on that rule. `off` silences; silenced findings are counted, not shown.
 
-Exit codes: 0 no finding at or above --fail-on, 1 some, 2 bad input.";
+Exit codes: 0 no finding at or above --fail-on-lint, 1 some, 2 bad input.";
 
 /// Check a ruleset for contradictions and hazards: one-way cycles, bridged sets, lemma
 /// chains, and rule terms that also fire for unrelated words.
@@ -57,14 +58,14 @@ pub struct Args {
     #[arg(long, value_name = "DIR")]
     base: Option<PathBuf>,
     /// Output format.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
+    #[arg(long, default_value = "text", value_parser = formats(&[Format::Text, Format::Json, Format::Sarif]))]
     format: Format,
     /// Also write the term-graph groups that have findings as DOT (replaced if it exists).
     #[arg(long, value_name = "FILE")]
     graph: Option<PathBuf>,
-    /// Exit 1 when a finding is at this severity or above.
-    #[arg(long, value_enum, value_name = "SEVERITY", default_value_t = FailOn::Error)]
-    fail_on: FailOn,
+    /// Exit 1 when a finding is at this severity or above: error, warning or info.
+    #[arg(long, alias = "fail-on", value_name = "SEVERITY", default_value = "error", value_parser = severity())]
+    fail_on_lint: Severity,
     /// Set a check's level for this run: off, info, warning or error (repeatable).
     #[arg(long = "level", value_name = "NAME=LEVEL", value_parser = parse_level)]
     levels: Vec<(String, Level)>,
@@ -74,33 +75,8 @@ pub struct Args {
     /// List every check with its default severity.
     #[arg(long)]
     list_checks: bool,
-    /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
-    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
-    color: ColorChoice,
-}
-
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum Format {
-    Text,
-    Json,
-    Sarif,
-}
-
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum FailOn {
-    Error,
-    Warning,
-    Info,
-}
-
-impl FailOn {
-    fn severity(self) -> Severity {
-        match self {
-            FailOn::Error => Severity::Error,
-            FailOn::Warning => Severity::Warning,
-            FailOn::Info => Severity::Info,
-        }
-    }
+    #[command(flatten)]
+    color: ColorArg,
 }
 
 /// `NAME=LEVEL`, with the name checked against the checks lint has.
@@ -130,7 +106,7 @@ fn parse_level(raw: &str) -> Result<(String, Level), String> {
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
-    let style = Style::for_stdout(args.color);
+    let style = Style::for_stdout(args.color.choice);
     if args.list_checks {
         print(&lint_text::render_check_list(style))?;
         return Ok(ExitCode::SUCCESS);
@@ -181,9 +157,10 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         Format::Text => lint_text::render(&report, &sources, style),
         Format::Json => lint_json::render(&report)?,
         Format::Sarif => lint_sarif::render(&report, &std::env::current_dir()?)?,
+        other => return Err(not_offered(other)),
     };
     print(&rendered)?;
-    Ok(if report.has_at_least(args.fail_on.severity()) {
+    Ok(if report.has_at_least(args.fail_on_lint) {
         ExitCode::from(1)
     } else {
         ExitCode::SUCCESS

@@ -7,6 +7,7 @@ mod lint;
 mod preview;
 mod review;
 mod sample;
+mod shared;
 mod stemcheck;
 mod trace;
 

@@ -9,9 +9,10 @@ use lexdelta::atomic::write_file;
 use lexdelta::index::IndexError;
 use lexdelta::preview::{self, PreviewError, PreviewInput};
 use lexdelta::report::preview_text::Limits;
-use lexdelta::report::{ColorChoice, Style, preview_json, preview_text};
+use lexdelta::report::{Style, preview_json, preview_text};
 
 use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
+use super::shared::{ColorArg, Format, LimitArg, formats, not_offered};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -44,9 +45,8 @@ pub struct Args {
     /// The changed ruleset.
     #[arg(long, value_name = "DIR", required_unless_present = "demo")]
     head: Option<PathBuf>,
-    /// Changed queries shown in text output (JSON lists all).
-    #[arg(long, default_value_t = 20)]
-    limit: usize,
+    #[command(flatten)]
+    limit: LimitArg,
     /// Gained and lost documents listed per query.
     #[arg(long, default_value_t = 5)]
     docs: usize,
@@ -55,22 +55,15 @@ pub struct Args {
     #[arg(long, value_name = "DIR")]
     runs: Option<PathBuf>,
     /// Output format.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
+    #[arg(long, default_value = "text", value_parser = formats(&[Format::Text, Format::Json]))]
     format: Format,
     /// JSON: leave out each changed query's top-k lists (the report says so in `omitted`).
     #[arg(long)]
     omit_top_lists: bool,
-    /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
-    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
-    color: ColorChoice,
+    #[command(flatten)]
+    color: ColorArg,
     #[command(flatten)]
     pub sample: SampleArgs,
-}
-
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum Format {
-    Text,
-    Json,
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
@@ -119,9 +112,9 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let rendered = match args.format {
         Format::Text => preview_text::render(
             &outcome.report,
-            Style::for_stdout(args.color),
+            Style::for_stdout(args.color.choice),
             Limits {
-                queries: args.limit,
+                queries: args.limit.value,
                 docs: args.docs,
             },
         ),
@@ -131,6 +124,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
                 top_lists: args.omit_top_lists,
             },
         )?,
+        other => return Err(not_offered(other)),
     };
     print(&rendered)?;
     Ok(ExitCode::SUCCESS)

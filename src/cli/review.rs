@@ -8,13 +8,14 @@ use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
 use lexdelta::lint::LintConfig;
 use lexdelta::report::preview_text::Limits;
-use lexdelta::report::{ColorChoice, Style, lint_sarif, review_json, review_markdown, review_text};
+use lexdelta::report::{Style, lint_sarif, review_json, review_markdown, review_text};
 use lexdelta::review::{self, GateLimits, ReviewInput};
 use lexdelta::rules::{self, Ruleset};
 use lexdelta::severity::Severity;
 
 use super::input::{finite, share};
 use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
+use super::shared::{ColorArg, Format, LimitArg, formats, not_offered, severity};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -55,7 +56,7 @@ pub struct Args {
     #[arg(long, value_name = "DIR", default_value = "rules")]
     rules: String,
     /// Output on stdout.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
+    #[arg(long, default_value = "text", value_parser = formats(&[Format::Text, Format::Markdown, Format::Json]))]
     format: Format,
     /// Also write the Markdown report (for a review comment) to FILE.
     #[arg(long, value_name = "FILE")]
@@ -79,30 +80,17 @@ pub struct Args {
     #[arg(long, value_name = "DROP", value_parser = finite)]
     max_query_ndcg_drop: Option<f64>,
     /// Gate: fail on lint findings at or above this severity.
-    #[arg(long, value_name = "SEVERITY", value_parser = parse_severity)]
+    #[arg(long, value_name = "SEVERITY", value_parser = severity())]
     fail_on_lint: Option<Severity>,
-    /// Affected queries listed in text and Markdown (JSON and HTML list all).
-    #[arg(long, default_value_t = 15)]
-    limit: usize,
+    #[command(flatten)]
+    limit: LimitArg,
     /// Gained and lost documents listed per query.
     #[arg(long, default_value_t = 5)]
     docs: usize,
-    /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
-    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
-    color: ColorChoice,
+    #[command(flatten)]
+    color: ColorArg,
     #[command(flatten)]
     sample: SampleArgs,
-}
-
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum Format {
-    Text,
-    Markdown,
-    Json,
-}
-
-fn parse_severity(text: &str) -> Result<Severity, String> {
-    Severity::from_name(text).ok_or_else(|| "use error, warning or info".to_string())
 }
 
 /// A directory if one exists at that path, otherwise a git revision of `rules_dir`.
@@ -154,11 +142,11 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         eprintln!("lexdelta: warning: {w}");
     }
     let limits = Limits {
-        queries: args.limit,
+        queries: args.limit.value,
         docs: args.docs,
     };
     let markdown_limits = review_markdown::Limits {
-        queries: args.limit,
+        queries: args.limit.value,
         docs: args.docs,
     };
     if let Some(path) = &args.markdown {
@@ -180,9 +168,10 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         write_file(path, sarif.as_bytes(), true)?;
     }
     let rendered = match args.format {
-        Format::Text => review_text::render(&report, Style::for_stdout(args.color), limits),
+        Format::Text => review_text::render(&report, Style::for_stdout(args.color.choice), limits),
         Format::Markdown => review_markdown::render(&report, markdown_limits),
         Format::Json => review_json::render(&report)?,
+        other => return Err(not_offered(other)),
     };
     print(&rendered)?;
     if let Some(path) = &args.html {

@@ -12,6 +12,7 @@ use lexdelta::report::stemcheck_text;
 use lexdelta::rules::load_dir;
 
 use super::input::{CorpusArgs, input_error, warn};
+use super::shared::{Format, formats, not_offered};
 use super::{CliError, print};
 
 /// Measure under-stemming (UI), over-stemming (OI), their ratio (SW) and the error rate
@@ -38,18 +39,12 @@ pub struct Args {
     #[arg(long, default_value = "/usr/share/wordnet")]
     wordnet: PathBuf,
     /// Output format.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
+    #[arg(long, default_value = "text", value_parser = formats(&[Format::Text, Format::Json]))]
     format: Format,
 }
 
 /// A stemmer under test: a word in, its key out.
 type StemFn<'a> = dyn Fn(&str) -> String + 'a;
-
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum Format {
-    Text,
-    Json,
-}
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let ruleset = load_dir(&args.rules)?;
@@ -90,6 +85,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let rendered = match args.format {
         Format::Text => stemcheck_text::render(&report),
         Format::Json => serde_json::to_string_pretty(&report)? + "\n",
+        other => return Err(not_offered(other)),
     };
     print(&rendered)?;
     Ok(ExitCode::SUCCESS)

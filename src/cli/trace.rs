@@ -4,8 +4,9 @@ use std::path::PathBuf;
 use std::process::ExitCode;
 
 use lexdelta::analysis::{Analyzer, Side};
-use lexdelta::report::{ColorChoice, Style, trace_text};
+use lexdelta::report::{Style, trace_text};
 
+use super::shared::{ColorArg, Format, formats, not_offered};
 use super::{CliError, print};
 
 /// Show each token of TEXT going through every stage, with the rule that fired.
@@ -21,28 +22,22 @@ pub struct Args {
     #[arg(long, value_enum, default_value_t = Side::Query)]
     side: Side,
     /// Output format.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
+    #[arg(long, default_value = "text", value_parser = formats(&[Format::Text, Format::Json]))]
     format: Format,
-    /// Colour: auto (on a terminal, unless NO_COLOR is set), always or never.
-    #[arg(long, value_enum, default_value_t = ColorChoice::Auto)]
-    color: ColorChoice,
+    #[command(flatten)]
+    color: ColorArg,
     /// The text to analyze (several words are joined by spaces).
     #[arg(required = true)]
     text: Vec<String>,
-}
-
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
-enum Format {
-    Text,
-    Json,
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let analyzer = Analyzer::load(&args.rules)?;
     let trace = analyzer.trace(&args.text.join(" "), args.side);
     let rendered = match args.format {
-        Format::Text => trace_text::render(&trace, Style::for_stdout(args.color)),
+        Format::Text => trace_text::render(&trace, Style::for_stdout(args.color.choice)),
         Format::Json => serde_json::to_string_pretty(&trace)? + "\n",
+        other => return Err(not_offered(other)),
     };
     print(&rendered)?;
     Ok(ExitCode::SUCCESS)
