@@ -130,11 +130,3 @@ pub fn finite(text: &str) -> Result<f64, String> {
         Err(e) => Err(e.to_string()),
     }
 }
-
-/// A share: a number from 0 to 1.
-pub fn share(text: &str) -> Result<f64, String> {
-    match finite(text)? {
-        v if (0.0..=1.0).contains(&v) => Ok(v),
-        _ => Err("must be a share from 0 to 1".into()),
-    }
-}

@@ -9,13 +9,11 @@ use lexdelta::atomic::write_file;
 use lexdelta::lint::LintConfig;
 use lexdelta::report::preview_text::Limits;
 use lexdelta::report::{Style, lint_sarif, review_json, review_markdown, review_text};
-use lexdelta::review::{self, GateLimits, ReviewInput};
+use lexdelta::review::{self, ReviewInput};
 use lexdelta::rules::{self, Ruleset};
-use lexdelta::severity::Severity;
 
-use super::input::{finite, share};
 use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
-use super::shared::{ColorArg, Format, LimitArg, formats, not_offered, severity};
+use super::shared::{ColorArg, Format, GateArgs, LimitArg, formats, not_offered};
 use super::{CliError, print};
 
 const AFTER_HELP: &str = "\
@@ -67,21 +65,8 @@ pub struct Args {
     /// Also write lint's SARIF 2.1.0 log of the head to FILE.
     #[arg(long, value_name = "FILE")]
     sarif: Option<PathBuf>,
-    /// Gate: no emptied query may have more searches than N.
-    #[arg(long, value_name = "N")]
-    max_emptied_searches: Option<u64>,
-    /// Gate: at most this share (0–1) of searches may lose documents.
-    #[arg(long, value_name = "SHARE", value_parser = share)]
-    max_lost_traffic_share: Option<f64>,
-    /// Gate: mean nDCG may drop by at most this much.
-    #[arg(long, value_name = "DROP", value_parser = finite)]
-    max_ndcg_drop: Option<f64>,
-    /// Gate: no judged query's nDCG may drop by more than this.
-    #[arg(long, value_name = "DROP", value_parser = finite)]
-    max_query_ndcg_drop: Option<f64>,
-    /// Gate: fail on lint findings at or above this severity.
-    #[arg(long, value_name = "SEVERITY", value_parser = severity())]
-    fail_on_lint: Option<Severity>,
+    #[command(flatten)]
+    gate: GateArgs,
     #[command(flatten)]
     limit: LimitArg,
     /// Gained and lost documents listed per query.
@@ -116,13 +101,7 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let base = Arc::new(Analyzer::new(load_side(&base_spec, &args.rules)?)?);
     let head = Arc::new(Analyzer::new(load_side(&head_spec, &args.rules)?)?);
     let loaded = args.sample.load(args.docs, false, true)?;
-    let limits = GateLimits {
-        max_emptied_searches: args.max_emptied_searches,
-        max_lost_traffic_share: args.max_lost_traffic_share,
-        max_ndcg_drop: args.max_ndcg_drop,
-        max_query_ndcg_drop: args.max_query_ndcg_drop,
-        fail_on_lint: args.fail_on_lint,
-    };
+    let limits = args.gate.0.clone();
     let lint_config = LintConfig::default();
     let outcome = review::review(
         ReviewInput {

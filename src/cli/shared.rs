@@ -4,6 +4,7 @@
 
 use clap::builder::{PossibleValuesParser, TypedValueParser, ValueParser};
 use lexdelta::report::ColorChoice;
+use lexdelta::rules::{GateLimits, Limit, LimitKind, LimitValue};
 
 use super::CliError;
 use lexdelta::severity::Severity;
@@ -74,4 +75,51 @@ pub fn not_offered(format: Format) -> CliError {
         format!("this command does not write {}", format.name()),
         false,
     )
+}
+
+/// The gate's limits as `review` options, one per declared limit ([`Limit::ALL`]): the
+/// option, its help and its range check all come from the declaration.
+#[derive(Clone, Debug, Default)]
+pub struct GateArgs(pub GateLimits);
+
+impl clap::FromArgMatches for GateArgs {
+    fn from_arg_matches(matches: &clap::ArgMatches) -> Result<Self, clap::Error> {
+        let mut limits = GateLimits::default();
+        for limit in Limit::ALL {
+            if let Some(value) = matches.get_one::<LimitValue>(limit.key()) {
+                limits.set(limit, *value);
+            }
+        }
+        Ok(GateArgs(limits))
+    }
+
+    fn update_from_arg_matches(&mut self, matches: &clap::ArgMatches) -> Result<(), clap::Error> {
+        *self = Self::from_arg_matches(matches)?;
+        Ok(())
+    }
+}
+
+impl clap::Args for GateArgs {
+    fn augment_args(cmd: clap::Command) -> clap::Command {
+        Limit::ALL.iter().fold(cmd, |cmd, &limit| {
+            let spec = limit.spec();
+            let value_name = match spec.kind {
+                LimitKind::Searches => "N",
+                LimitKind::Share => "SHARE",
+                LimitKind::Drop => "DROP",
+                LimitKind::Severity => "SEVERITY",
+            };
+            cmd.arg(
+                clap::Arg::new(spec.key)
+                    .long(spec.option)
+                    .value_name(value_name)
+                    .help(format!("Gate: {}.", spec.help))
+                    .value_parser(move |text: &str| limit.parse(text)),
+            )
+        })
+    }
+
+    fn augment_args_for_update(cmd: clap::Command) -> clap::Command {
+        Self::augment_args(cmd)
+    }
 }

@@ -6,50 +6,9 @@
 
 use serde::Serialize;
 
-use crate::rules::GateSettings;
 use crate::severity::Severity;
 
-/// The limits in force.
-#[derive(Clone, Debug, Default, PartialEq, Serialize)]
-pub struct GateLimits {
-    /// No query emptied by the change may have more searches than this.
-    pub max_emptied_searches: Option<u64>,
-    /// The share of all searches whose results lose documents may not exceed this.
-    pub max_lost_traffic_share: Option<f64>,
-    /// Mean nDCG may not drop by more than this.
-    pub max_ndcg_drop: Option<f64>,
-    /// No single judged query's nDCG may drop by more than this.
-    pub max_query_ndcg_drop: Option<f64>,
-    /// No lint finding at or above this severity.
-    pub fail_on_lint: Option<Severity>,
-}
-
-impl GateLimits {
-    pub fn from_settings(settings: &GateSettings) -> Self {
-        GateLimits {
-            max_emptied_searches: settings.max_emptied_searches,
-            max_lost_traffic_share: settings.max_lost_traffic_share,
-            max_ndcg_drop: settings.max_ndcg_drop,
-            max_query_ndcg_drop: settings.max_query_ndcg_drop,
-            fail_on_lint: settings.fail_on_lint,
-        }
-    }
-
-    /// Limits given on the command line take precedence over the ruleset's.
-    pub fn overridden_by(self, other: &GateLimits) -> Self {
-        GateLimits {
-            max_emptied_searches: other.max_emptied_searches.or(self.max_emptied_searches),
-            max_lost_traffic_share: other.max_lost_traffic_share.or(self.max_lost_traffic_share),
-            max_ndcg_drop: other.max_ndcg_drop.or(self.max_ndcg_drop),
-            max_query_ndcg_drop: other.max_query_ndcg_drop.or(self.max_query_ndcg_drop),
-            fail_on_lint: other.fail_on_lint.or(self.fail_on_lint),
-        }
-    }
-
-    pub fn is_empty(&self) -> bool {
-        *self == GateLimits::default()
-    }
-}
+pub use crate::rules::{GateLimits, Limit, LimitValue};
 
 /// What the gate looks at, taken from the review's result.
 #[derive(Clone, Debug, Default)]
@@ -99,24 +58,24 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
                 .into(),
         });
     }
-    if let Some(max) = limits.max_emptied_searches {
+    if let Some(max) = limits.searches(Limit::MaxEmptiedSearches) {
         let mut over: Vec<&(String, u64)> =
             input.emptied.iter().filter(|(_, n)| *n > max).collect();
         over.sort_by(|a, b| b.1.cmp(&a.1).then_with(|| a.0.cmp(&b.0)));
         for (query, searches) in over {
             breaches.push(Breach {
-                limit: "max_emptied_searches",
+                limit: Limit::MaxEmptiedSearches.key(),
                 reason: format!("{query:?} ({searches} searches) finds nothing after the change; the limit is {max}"),
             });
         }
     }
-    if let Some(max) = limits.max_lost_traffic_share
+    if let Some(max) = limits.fraction(Limit::MaxLostTrafficShare)
         && input.total_searches > 0
     {
         let share = input.lost_searches as f64 / input.total_searches as f64;
         if share > max {
             breaches.push(Breach {
-                limit: "max_lost_traffic_share",
+                limit: Limit::MaxLostTrafficShare.key(),
                 reason: format!(
                     "{:.1}% of searches ({} of {}) lose documents; the limit is {:.1}%",
                     share * 100.0,
@@ -127,16 +86,18 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
             });
         }
     }
-    if let (Some(max), Some((metric, before, after))) = (limits.max_ndcg_drop, &input.ndcg) {
+    if let (Some(max), Some((metric, before, after))) =
+        (limits.fraction(Limit::MaxNdcgDrop), &input.ndcg)
+    {
         let drop = before - after;
         if drop > max {
             breaches.push(Breach {
-                limit: "max_ndcg_drop",
+                limit: Limit::MaxNdcgDrop.key(),
                 reason: format!("mean {metric} drops by {drop:.4} ({before:.4} → {after:.4}); the limit is {max:.4}"),
             });
         }
     }
-    if let Some(max) = limits.max_query_ndcg_drop {
+    if let Some(max) = limits.fraction(Limit::MaxQueryNdcgDrop) {
         let mut over: Vec<&(String, u64, f64, f64)> = input
             .query_ndcg
             .iter()
@@ -149,7 +110,7 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
         });
         for (query, searches, before, after) in over {
             breaches.push(Breach {
-                limit: "max_query_ndcg_drop",
+                limit: Limit::MaxQueryNdcgDrop.key(),
                 reason: format!(
                     "{query:?} ({searches} searches): nDCG drops by {:.4} ({before:.4} → {after:.4}); the limit is {max:.4}",
                     before - after
@@ -157,7 +118,7 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
             });
         }
     }
-    if let Some(floor) = limits.fail_on_lint {
+    if let Some(floor) = limits.severity(Limit::FailOnLint) {
         let n: usize = input
             .lint
             .iter()
@@ -166,7 +127,7 @@ pub fn check(limits: &GateLimits, input: &GateInput) -> GateOutcome {
             .sum();
         if n > 0 {
             breaches.push(Breach {
-                limit: "fail_on_lint",
+                limit: Limit::FailOnLint.key(),
                 reason: format!(
                     "{n} lint finding{} at {floor} or above",
                     if n == 1 { "" } else { "s" }
@@ -211,13 +172,12 @@ mod tests {
 
     #[test]
     fn each_breached_limit_gives_one_reason() {
-        let limits = GateLimits {
-            max_emptied_searches: Some(5),
-            max_lost_traffic_share: Some(0.02),
-            max_ndcg_drop: Some(0.01),
-            max_query_ndcg_drop: Some(0.25),
-            fail_on_lint: Some(Severity::Error),
-        };
+        let mut limits = GateLimits::default();
+        limits.set(Limit::MaxEmptiedSearches, LimitValue::Searches(5));
+        limits.set(Limit::MaxLostTrafficShare, LimitValue::Fraction(0.02));
+        limits.set(Limit::MaxNdcgDrop, LimitValue::Fraction(0.01));
+        limits.set(Limit::MaxQueryNdcgDrop, LimitValue::Fraction(0.25));
+        limits.set(Limit::FailOnLint, LimitValue::Severity(Severity::Error));
         let out = check(&limits, &input());
         let names: Vec<&str> = out.breaches.iter().map(|b| b.limit).collect();
         assert_eq!(
@@ -239,14 +199,10 @@ mod tests {
 
     #[test]
     fn within_limits_passes_and_cli_overrides_the_ruleset() {
-        let ruleset = GateLimits {
-            max_emptied_searches: Some(0),
-            ..GateLimits::default()
-        };
-        let cli = GateLimits {
-            max_emptied_searches: Some(100),
-            ..GateLimits::default()
-        };
+        let mut ruleset = GateLimits::default();
+        ruleset.set(Limit::MaxEmptiedSearches, LimitValue::Searches(0));
+        let mut cli = GateLimits::default();
+        cli.set(Limit::MaxEmptiedSearches, LimitValue::Searches(100));
         let limits = ruleset.overridden_by(&cli);
         assert!(check(&limits, &input()).passed());
     }

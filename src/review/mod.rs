@@ -70,9 +70,8 @@ pub fn review(
             config: input.lint,
         },
     );
-    let limits = GateLimits::from_settings(&base_rules.gate).overridden_by(&input.limits);
-    let gate_changed =
-        GateLimits::from_settings(&head_rules.gate) != GateLimits::from_settings(&base_rules.gate);
+    let limits = base_rules.gate.limits.clone().overridden_by(&input.limits);
+    let gate_changed = head_rules.gate.limits != base_rules.gate.limits;
     let outcome = preview::run(
         PreviewInput {
             base: Arc::clone(&input.base),

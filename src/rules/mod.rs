@@ -6,6 +6,7 @@
 //! at the YAML. The format is described in `docs/rule-files.md`.
 
 mod error;
+pub mod gate;
 mod git;
 mod load;
 mod schema;
@@ -19,6 +20,7 @@ use regex::Regex;
 use serde::Serialize;
 
 pub use error::{Diagnostic, RulesError};
+pub use gate::{GateLimits, Limit, LimitKind, LimitValue};
 pub use git::{load_at_revision, validate_revision};
 pub use load::{SourceFile, load_dir, load_sources, read_sources};
 pub use yaml::Position;
@@ -290,12 +292,7 @@ pub struct LintSettings {
 /// Limits that `review` enforces (`gate:` section).
 #[derive(Clone, Debug, Default, Serialize)]
 pub struct GateSettings {
-    pub max_emptied_searches: Option<u64>,
-    pub max_lost_traffic_share: Option<f64>,
-    pub max_ndcg_drop: Option<f64>,
-    /// No single judged query's nDCG may drop by more than this.
-    pub max_query_ndcg_drop: Option<f64>,
-    pub fail_on_lint: Option<Severity>,
+    pub limits: GateLimits,
     pub origin: Option<Origin>,
 }
 

@@ -8,8 +8,8 @@ use regex::Regex;
 use super::yaml::{Node, Position, Value};
 use super::{
     Diagnostic, ExemptKind, Exemption, FORMAT_VERSION, GateSettings, Language, LemmaOverride,
-    Level, LintOverride, LintSettings, Origin, Pipeline, RuleMeta, SynonymKind, SynonymRule, Term,
-    TokenPattern,
+    Level, Limit, LimitKind, LimitValue, LintOverride, LintSettings, Origin, Pipeline, RuleMeta,
+    SynonymKind, SynonymRule, Term, TokenPattern,
 };
 use crate::severity::Severity;
 
@@ -42,13 +42,6 @@ const LEMMA_KEYS: &[&str] = &["form", "lemma", "id", "note", "lint"];
 const LINT_OVERRIDE_KEYS: &[&str] = &["check", "severity", "reason"];
 const LINT_KEYS: &[&str] = &["checks", "max_group_size", "max_pattern_share"];
 const LINT_CHECK_KEYS: &[&str] = &["severity"];
-const GATE_KEYS: &[&str] = &[
-    "max_emptied_searches",
-    "max_lost_traffic_share",
-    "max_ndcg_drop",
-    "max_query_ndcg_drop",
-    "fail_on_lint",
-];
 
 /// Walks one file's tree, collecting diagnostics instead of stopping at the first.
 pub struct Walker<'a> {
@@ -749,28 +742,30 @@ impl<'a> Walker<'a> {
     }
 
     fn gate(&mut self, node: &Node) -> Option<GateSettings> {
-        let entries = self.map(node, "`gate`", GATE_KEYS)?;
-        self.check_keys(entries, GATE_KEYS, "`gate`");
+        let keys = Limit::keys();
+        let entries = self.map(node, "`gate`", &keys)?;
+        self.check_keys(entries, &keys, "`gate`");
         let mut gate = GateSettings {
             origin: Some(self.origin(node.at)),
             ..GateSettings::default()
         };
-        if let Some(n) = get(entries, "max_emptied_searches") {
-            gate.max_emptied_searches = self
-                .whole_number(n, "`max_emptied_searches`", 0)
-                .map(|v| v as u64);
-        }
-        if let Some(n) = get(entries, "max_lost_traffic_share") {
-            gate.max_lost_traffic_share = self.share(n, "`max_lost_traffic_share`");
-        }
-        if let Some(n) = get(entries, "max_ndcg_drop") {
-            gate.max_ndcg_drop = self.share(n, "`max_ndcg_drop`");
-        }
-        if let Some(n) = get(entries, "max_query_ndcg_drop") {
-            gate.max_query_ndcg_drop = self.share(n, "`max_query_ndcg_drop`");
-        }
-        if let Some(n) = get(entries, "fail_on_lint") {
-            gate.fail_on_lint = self.severity(n);
+        for limit in Limit::ALL {
+            let Some(n) = get(entries, limit.key()) else {
+                continue;
+            };
+            let what = format!("`{}`", limit.key());
+            let value = match limit.spec().kind {
+                LimitKind::Searches => self
+                    .whole_number(n, &what, 0)
+                    .map(|v| LimitValue::Searches(v as u64)),
+                LimitKind::Share | LimitKind::Drop => {
+                    self.share(n, &what).map(LimitValue::Fraction)
+                }
+                LimitKind::Severity => self.severity(n).map(LimitValue::Severity),
+            };
+            if let Some(value) = value {
+                gate.limits.set(limit, value);
+            }
         }
         Some(gate)
     }
