@@ -6,11 +6,11 @@ use std::sync::Arc;
 
 use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
-use lexdelta::index::IndexError;
 use lexdelta::preview::{self, PreviewError, PreviewInput};
 use lexdelta::report::preview_text::Limits;
 use lexdelta::report::{Style, preview_json, preview_text};
 
+use super::input::{input_error, warn};
 use super::sample::{DEMO_BASE, DEMO_HEAD, SampleArgs, bar};
 use super::shared::{ColorArg, Format, LimitArg, formats, not_offered};
 use super::{CliError, print};
@@ -70,24 +70,25 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     let dir = |given: &Option<PathBuf>, demo: &str| given.clone().unwrap_or_else(|| demo.into());
     let base = Arc::new(Analyzer::load(&dir(&args.base, DEMO_BASE))?);
     let head = Arc::new(Analyzer::load(&dir(&args.head, DEMO_HEAD))?);
-    // With a cache, the documents are first read without their texts: a cached index holds
-    // all retrieval reads. Only when the cache has no index are they read again, in full.
-    let cached = !args.sample.no_cache;
-    let mut loaded = args.sample.load(args.docs, args.runs.is_some(), !cached)?;
+    let loaded = args.sample.load(args.docs, args.runs.is_some())?;
     let options = loaded.options.clone();
-    let indexes = match preview::open_indexes(&loaded.corpus, &base, &head, &options, &bar()) {
-        Err(PreviewError::Index(IndexError::NoTexts)) => {
-            loaded.read_texts()?;
-            preview::open_indexes(&loaded.corpus, &base, &head, &options, &bar())?
-        }
-        opened => opened?,
-    };
-    // The index holds what retrieval reads: the texts go before the queries are run.
-    loaded.corpus.drop_texts();
+    let (corpus, indexes) = preview::open_sample(
+        &loaded.corpus_path,
+        &loaded.doc_options,
+        &base,
+        &head,
+        &options,
+        &bar(),
+    )
+    .map_err(|e| match e {
+        PreviewError::Corpus(e) => input_error(e),
+        e => e.into(),
+    })?;
+    warn(&corpus.warnings);
     let input = PreviewInput {
         base,
         head,
-        corpus: &loaded.corpus,
+        corpus: &corpus,
         queries: &loaded.log,
         judged: loaded.judged,
     };

@@ -100,14 +100,15 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
     });
     let base = Arc::new(Analyzer::new(load_side(&base_spec, &args.rules)?)?);
     let head = Arc::new(Analyzer::new(load_side(&head_spec, &args.rules)?)?);
-    let loaded = args.sample.load(args.docs, false, true)?;
+    let loaded = args.sample.load(args.docs, false)?;
+    let corpus = loaded.read_corpus()?;
     let limits = args.gate.0.clone();
     let lint_config = LintConfig::default();
     let outcome = review::review(
         ReviewInput {
             base,
             head,
-            corpus: &loaded.corpus,
+            corpus: &corpus,
             queries: &loaded.log,
             judged: loaded.judged,
             lint: &lint_config,

@@ -5,10 +5,7 @@ use std::io::IsTerminal;
 use std::path::PathBuf;
 
 use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
-use lexdelta::corpus::{
-    Corpus, DocOptions, QueryLog, Sample, read_documents, read_documents_without_texts,
-    read_judgments,
-};
+use lexdelta::corpus::{Corpus, DocOptions, QueryLog, Sample, read_documents, read_judgments};
 use lexdelta::index::Progress;
 use lexdelta::metrics::{self, RandomizationTest};
 use lexdelta::preview::{self, JudgedSet, MatchMode, PreviewOptions, Ranking, Scoring};
@@ -83,29 +80,23 @@ const DEMO_JUDGED_QUERIES: &str = "demo-corpus/judged-queries.tsv";
 
 /// Everything a preview needs besides the two rulesets.
 pub struct Loaded {
-    pub corpus: Corpus,
-    /// Where the corpus was read from and how: to read it again with its texts.
-    corpus_path: PathBuf,
-    doc_options: DocOptions,
+    /// Where the documents are and how to read them (see [`Loaded::read_corpus`]).
+    pub corpus_path: PathBuf,
+    pub doc_options: DocOptions,
     pub log: QueryLog,
     pub judged: Option<JudgedSet>,
     pub options: PreviewOptions,
 }
 
 impl SampleArgs {
-    /// Validates the settings and reads the corpus, queries and judgments; the documents'
-    /// texts only with `texts` (see [`Loaded::read_texts`]).
-    pub fn load(
-        &self,
-        docs_shown: usize,
-        want_runs: bool,
-        texts: bool,
-    ) -> Result<Loaded, CliError> {
+    /// Validates the settings and reads the queries and judgments; the documents are read
+    /// by [`Loaded::read_corpus`] or by the preview itself (`preview::open_sample`).
+    pub fn load(&self, docs_shown: usize, want_runs: bool) -> Result<Loaded, CliError> {
         if self.demo && self.judgments.is_none() {
             let mut with_demo = self.clone();
             with_demo.judgments = Some(DEMO_JUDGMENTS.into());
             with_demo.judged_queries = Some(DEMO_JUDGED_QUERIES.into());
-            return with_demo.load(docs_shown, want_runs, texts);
+            return with_demo.load(docs_shown, want_runs);
         }
         let mode: MatchMode = self
             .mode
@@ -141,13 +132,6 @@ impl SampleArgs {
         };
         let corpus_path = given_or_demo(&self.input.corpus, DEMO_CORPUS, "--corpus")?;
         let queries_path = given_or_demo(&self.log.queries, DEMO_QUERIES, "--queries")?;
-        let corpus = if texts {
-            read_documents(&corpus_path, &doc_options)
-        } else {
-            read_documents_without_texts(&corpus_path, &doc_options)
-        }
-        .map_err(input_error)?;
-        warn(&corpus.warnings);
         let log = self.log.read(&queries_path)?;
         let judged = match &self.judgments {
             None => None,
@@ -158,7 +142,6 @@ impl SampleArgs {
             }
         };
         Ok(Loaded {
-            corpus,
             corpus_path,
             doc_options,
             log,
@@ -169,12 +152,11 @@ impl SampleArgs {
 }
 
 impl Loaded {
-    /// Reads the corpus again, with its texts (the same file, so the same fingerprint).
-    pub fn read_texts(&mut self) -> Result<(), CliError> {
-        // The text-free copy goes first: the two need not be held at once.
-        self.corpus.documents = Vec::new();
-        self.corpus = read_documents(&self.corpus_path, &self.doc_options).map_err(input_error)?;
-        Ok(())
+    /// Reads the documents with their texts, and says on stderr what they lack.
+    pub fn read_corpus(&self) -> Result<Corpus, CliError> {
+        let corpus = read_documents(&self.corpus_path, &self.doc_options).map_err(input_error)?;
+        warn(&corpus.warnings);
+        Ok(corpus)
     }
 }
 

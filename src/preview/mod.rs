@@ -93,7 +93,7 @@ mod retrieve;
 mod runs;
 mod views;
 
-use std::path::PathBuf;
+use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
 pub use crate::index::SurfaceForms;
@@ -108,7 +108,9 @@ pub use retrieve::{
 pub use runs::{RunQuery, Runs, trec_run};
 
 use crate::analysis::Analyzer;
-use crate::corpus::{Corpus, QueryLog};
+use crate::corpus::{
+    Corpus, CorpusError, DocOptions, QueryLog, read_documents, read_documents_without_texts,
+};
 use crate::index::{self, IndexError, IndexPostings, Progress};
 use crate::metrics::{self, Judgments, Metric, MetricsError, Queries, RandomizationTest};
 use evaluate::Engine;
@@ -213,6 +215,8 @@ pub enum PreviewError {
     Index(#[from] IndexError),
     #[error(transparent)]
     Metrics(#[from] MetricsError),
+    #[error(transparent)]
+    Corpus(#[from] CorpusError),
     /// An id that the TREC run format cannot carry.
     #[error(
         "{what} id {id:?} cannot be written to a TREC run file: {why}; give it an id without \
@@ -319,6 +323,37 @@ pub fn open_indexes(
             Some(open(corpus, head, options, progress)?)
         },
     })
+}
+
+/// Reads the sample's documents and opens both sides' surface indexes, holding as little
+/// text as it can: with a cache, the documents are first read without their texts (a
+/// cached index holds everything retrieval reads) and read again in full only when an
+/// index must be built; the texts are dropped once the indexes are open, before any query
+/// runs.
+pub fn open_sample(
+    path: &Path,
+    doc_options: &DocOptions,
+    base: &Analyzer,
+    head: &Analyzer,
+    options: &PreviewOptions,
+    progress: &dyn Progress,
+) -> Result<(Corpus, OpenedIndexes), PreviewError> {
+    let mut corpus = if options.cache_dir.is_some() {
+        read_documents_without_texts(path, doc_options)?
+    } else {
+        read_documents(path, doc_options)?
+    };
+    let indexes = match open_indexes(&corpus, base, head, options, progress) {
+        Err(PreviewError::Index(IndexError::NoTexts)) => {
+            // The text-free copy goes first: the two need not be held at once.
+            corpus.documents = Vec::new();
+            corpus = read_documents(path, doc_options)?;
+            open_indexes(&corpus, base, head, options, progress)?
+        }
+        opened => opened?,
+    };
+    corpus.drop_texts();
+    Ok((corpus, indexes))
 }
 
 /// Runs a preview.
