@@ -5,7 +5,7 @@ use std::path::PathBuf;
 #[derive(Debug, thiserror::Error)]
 pub enum AuditError {
     #[error(
-        "cannot read {path}: {source}\n  help: install the WordNet 3.0 data (Debian: apt-get install wordnet-base) or pass --wordnet DIR"
+        "cannot read {path}: {source}\n  help: install the WordNet 3.0 data (Debian: apt-get install wordnet-base), or give the directory that holds its dict files"
     )]
     WordNet {
         path: PathBuf,
@@ -24,4 +24,8 @@ pub enum AuditError {
     Groups { path: PathBuf, message: String },
     #[error(transparent)]
     Rules(#[from] crate::rules::RulesError),
+    #[error("no shown group has the key {0:?}")]
+    UnknownGroup(String),
+    #[error("no verified suggestion to write")]
+    NoSuggestion,
 }

@@ -10,9 +10,10 @@ use serde::Serialize;
 
 use super::collisions::{self, Collision, KeyIndex};
 use super::effect::{self, Effect};
+use super::error::AuditError;
 use super::morphy::Morphy;
 use super::postings::FormLists;
-use super::suggest::{self, Suggestion};
+use super::suggest::{self, Suggestion, rule_file};
 use crate::analysis::Analyzer;
 use crate::corpus::{Corpus, CorpusError, DocOptions, QueryLog};
 use crate::corpus::{DocumentCounts, Vocabulary};
@@ -59,6 +60,29 @@ pub struct CollisionReport {
     /// Groups with more than one meaning class (risk > 0).
     pub risky: usize,
     pub collisions: Vec<RankedCollision>,
+}
+
+impl CollisionReport {
+    /// The verified suggestions of the shown groups whose keys are in `accept` (of every
+    /// shown group when `accept` is empty), as a new rule file.
+    pub fn accepted_rule_file(&self, accept: &[String]) -> Result<String, AuditError> {
+        if let Some(key) = accept
+            .iter()
+            .find(|key| !self.collisions.iter().any(|c| &c.collision.key == *key))
+        {
+            return Err(AuditError::UnknownGroup(key.clone()));
+        }
+        let accepted: Vec<_> = self
+            .collisions
+            .iter()
+            .filter(|c| accept.is_empty() || accept.contains(&c.collision.key))
+            .filter_map(|c| c.suggestion.as_ref())
+            .collect();
+        if accepted.is_empty() {
+            return Err(AuditError::NoSuggestion);
+        }
+        Ok(rule_file(&accepted))
+    }
 }
 
 /// Builds the report from documents in memory.

@@ -25,6 +25,9 @@
 use rustc_hash::FxHashMap;
 use serde::Serialize;
 
+use crate::analysis::Analyzer;
+use crate::rules::{RulesError, Ruleset};
+
 /// The counts and indices for one stemmer.
 #[derive(Clone, Debug, PartialEq, Serialize)]
 pub struct Indices {
@@ -168,6 +171,55 @@ pub struct StemcheckReport {
     pub groups: usize,
     pub rows: Vec<Row>,
     pub truncation: Vec<Row>,
+}
+
+/// The ruleset taken apart step by step, each step an analyzer: the bare stemmer, the
+/// stemmer with the ruleset's exemptions, and with its lemma overrides too. What each
+/// step adds to Paice's indices is what that kind of rule does to the stemmer's errors.
+pub struct Ablation {
+    steps: Vec<(String, Analyzer)>,
+}
+
+impl Ablation {
+    pub fn new(ruleset: &Ruleset) -> Result<Ablation, RulesError> {
+        let mut bare = ruleset.clone();
+        bare.exemptions.clear();
+        bare.lemmas.clear();
+        let mut exempt_only = ruleset.clone();
+        exempt_only.lemmas.clear();
+        Ok(Ablation {
+            steps: vec![
+                ("bare stemmer".into(), Analyzer::new(bare)?),
+                ("stemmer + exemptions".into(), Analyzer::new(exempt_only)?),
+                (
+                    "stemmer + exemptions + lemma overrides".into(),
+                    Analyzer::new(ruleset.clone())?,
+                ),
+            ],
+        })
+    }
+
+    /// The whole ruleset's analyzer (the last step).
+    pub fn full(&self) -> &Analyzer {
+        &self.steps[self.steps.len() - 1].1
+    }
+
+    /// Every step's indices over `groups`.
+    pub fn report(&self, source: &str, groups: &ConceptGroups) -> StemcheckReport {
+        let stems: Vec<Box<dyn Fn(&str) -> String + '_>> = self
+            .steps
+            .iter()
+            .map(|(_, a)| Box::new(move |w: &str| a.key_ignoring_stopwords(w).into_owned()) as _)
+            .collect();
+        stemcheck(
+            source,
+            groups,
+            self.steps
+                .iter()
+                .zip(&stems)
+                .map(|((name, _), f)| (name.clone(), f.as_ref())),
+        )
+    }
 }
 
 /// Computes each named stemmer's indices and its ERRT against truncation.

@@ -5,9 +5,9 @@ use std::process::ExitCode;
 
 use lexdelta::analysis::Analyzer;
 use lexdelta::atomic::write_file;
+use lexdelta::audit::AuditError;
 use lexdelta::audit::morphy::Morphy;
 use lexdelta::audit::report::{CollisionOptions, collision_report_from_file};
-use lexdelta::audit::suggest::rule_file;
 use lexdelta::corpus::DocumentCounts;
 use lexdelta::report::{Style, collisions_csv, collisions_json, collisions_text};
 
@@ -100,23 +100,13 @@ fn write_rules(
     accept: &[String],
     force: bool,
 ) -> Result<(), CliError> {
-    for key in accept {
-        if !report.collisions.iter().any(|c| &c.collision.key == key) {
-            return Err(CliError(
-                format!("--accept {key:?}: no shown group has that key (raise --limit?)"),
-                false,
-            ));
-        }
-    }
-    let accepted: Vec<_> = report
-        .collisions
-        .iter()
-        .filter(|c| accept.is_empty() || accept.contains(&c.collision.key))
-        .filter_map(|c| c.suggestion.as_ref())
-        .collect();
-    if accepted.is_empty() {
-        return Err(CliError("no verified suggestion to write".into(), false));
-    }
-    write_file(path, rule_file(&accepted).as_bytes(), force)?;
+    let text = report.accepted_rule_file(accept).map_err(|e| match e {
+        AuditError::UnknownGroup(key) => CliError(
+            format!("--accept {key:?}: no shown group has that key (raise --limit?)"),
+            false,
+        ),
+        e => e.into(),
+    })?;
+    write_file(path, text.as_bytes(), force)?;
     Ok(())
 }

@@ -6,7 +6,7 @@ use std::process::ExitCode;
 use lexdelta::analysis::Analyzer;
 use lexdelta::audit::concepts::{read_groups, wordnet_groups};
 use lexdelta::audit::morphy::Morphy;
-use lexdelta::audit::stemcheck::{ConceptGroups, stemcheck};
+use lexdelta::audit::stemcheck::{Ablation, ConceptGroups};
 use lexdelta::corpus::{DocumentCounts, Vocabulary};
 use lexdelta::report::stemcheck_text;
 use lexdelta::rules::load_dir;
@@ -43,45 +43,23 @@ pub struct Args {
     format: Format,
 }
 
-/// A stemmer under test: a word in, its key out.
-type StemFn<'a> = dyn Fn(&str) -> String + 'a;
-
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
-    let ruleset = load_dir(&args.rules)?;
-    let mut bare = ruleset.clone();
-    bare.exemptions.clear();
-    bare.lemmas.clear();
-    let mut exempt_only = ruleset.clone();
-    exempt_only.lemmas.clear();
-    let analyzers = [
-        ("bare stemmer", Analyzer::new(bare)?),
-        ("stemmer + exemptions", Analyzer::new(exempt_only)?),
-        (
-            "stemmer + exemptions + lemma overrides",
-            Analyzer::new(ruleset)?,
-        ),
-    ];
-    let surface = analyzers[2].1.surface();
+    let ablation = Ablation::new(&load_dir(&args.rules)?)?;
+    let surface = ablation.full().surface();
     let (groups, source) = match (&args.groups, &args.input.corpus) {
         (Some(path), _) => (read_groups(path, surface)?, path.display().to_string()),
         (None, Some(corpus)) => (
-            corpus_groups(&args, corpus, &analyzers[2].1)?,
+            corpus_groups(&args, corpus, ablation.full())?,
             format!("WordNet over {}", corpus.display()),
         ),
-        (None, None) => unreachable!("clap requires --groups or --wordnet-groups --corpus"),
+        (None, None) => {
+            return Err(CliError(
+                "give --groups FILE, or --wordnet-groups with --corpus FILE".into(),
+                false,
+            ));
+        }
     };
-    let stems: Vec<Box<StemFn>> = analyzers
-        .iter()
-        .map(|(_, a)| Box::new(move |w: &str| a.key_ignoring_stopwords(w).into_owned()) as _)
-        .collect();
-    let report = stemcheck(
-        &source,
-        &groups,
-        analyzers
-            .iter()
-            .zip(&stems)
-            .map(|((name, _), f)| (name.to_string(), f.as_ref())),
-    );
+    let report = ablation.report(&source, &groups);
     let rendered = match args.format {
         Format::Text => stemcheck_text::render(&report),
         Format::Json => serde_json::to_string_pretty(&report)? + "\n",

@@ -35,7 +35,7 @@ impl PartOfSpeech {
 #[derive(Debug, thiserror::Error)]
 pub enum ImportError {
     #[error(
-        "cannot read {path}: {source}\n  help: install the WordNet 3.0 data (Debian: apt-get install wordnet-base) or pass --wordnet DIR"
+        "cannot read {path}: {source}\n  help: install the WordNet 3.0 data (Debian: apt-get install wordnet-base), or give the directory that holds its dict files"
     )]
     Read {
         path: PathBuf,

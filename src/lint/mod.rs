@@ -312,11 +312,11 @@ pub fn lint(analyzer: &Analyzer, input: &LintInput) -> LintReport {
         match check.info.needs {
             Needs::Vocabulary if cx.vocabulary.is_none() => skipped.push(Skipped {
                 check: check.info.name,
-                reason: "needs a vocabulary (--corpus or --queries)",
+                reason: "needs a vocabulary (a corpus or a query log)",
             }),
             Needs::Base if cx.base.is_none() => skipped.push(Skipped {
                 check: check.info.name,
-                reason: "needs a base ruleset (--base)",
+                reason: "needs the ruleset before the change",
             }),
             _ => (check.run)(&cx, &mut raw),
         }
