@@ -206,10 +206,11 @@ impl Ablation {
 
     /// Every step's indices over `groups`.
     pub fn report(&self, source: &str, groups: &ConceptGroups) -> StemcheckReport {
-        let stems: Vec<Box<dyn Fn(&str) -> String + '_>> = self
+        // One closure type for every step, so they sit in one Vec without boxing.
+        let stems: Vec<_> = self
             .steps
             .iter()
-            .map(|(_, a)| Box::new(move |w: &str| a.key_ignoring_stopwords(w).into_owned()) as _)
+            .map(|(_, a)| move |w: &str| a.key_ignoring_stopwords(w).into_owned())
             .collect();
         stemcheck(
             source,
@@ -217,7 +218,7 @@ impl Ablation {
             self.steps
                 .iter()
                 .zip(&stems)
-                .map(|((name, _), f)| (name.clone(), f.as_ref())),
+                .map(|((name, _), f)| (name.clone(), f as &dyn Fn(&str) -> String)),
         )
     }
 }
