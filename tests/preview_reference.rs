@@ -150,6 +150,7 @@ fn check_against_trec_eval(
     let (values, means) = lexdelta_values(&report);
     let mut failures = Vec::new();
     let mut not_found = 0;
+    let (mut compared, mut largest) = (0usize, 0f64);
     for (side, pick) in [("base", 0), ("head", 1)] {
         let run = runs.join(format!("{side}.run"));
         let expected: Value = serde_json::from_str(&reference(&[
@@ -189,6 +190,8 @@ fn check_against_trec_eval(
             for (qid, want) in per_query.as_object().unwrap() {
                 let got = if pick == 0 { ours[qid].0 } else { ours[qid].1 };
                 let want = want.as_f64().unwrap();
+                compared += 1;
+                largest = largest.max((got - want).abs());
                 if (got - want).abs() > 1e-9 {
                     failures.push(format!("{label} {side} {name} {qid}: {got} vs {want}"));
                 }
@@ -204,6 +207,10 @@ fn check_against_trec_eval(
             }
         }
     }
+    // For the record (visible with --nocapture).
+    println!(
+        "{label}: {compared} per-query figures compared with trec_eval, largest difference {largest:e}"
+    );
     assert!(
         failures.is_empty(),
         "{} figures disagree with trec_eval:\n{}",
