@@ -444,7 +444,6 @@ pub fn run_opened(
     } else {
         vec![PreviewWarning::NothingFound]
     };
-    let change = &keyed.change;
     let report = PreviewReport {
         notice: EVIDENCE_NOTICE.to_string(),
         base: ruleset_info(base_a),
@@ -457,26 +456,8 @@ pub fn run_opened(
             index: indexes.base.status.clone(),
         },
         queries_source: input.queries.source.clone(),
-        settings: Settings {
-            scoring: options.scoring,
-            ranking_definition: options.scoring.definition(),
-            top_k: options.top_k,
-            depth: options.depth,
-            rbo_p: options.rbo_p,
-        },
-        evaluation: EvaluationInfo {
-            strategy: if change.evaluate_all.is_some() {
-                "all".into()
-            } else {
-                "affected".into()
-            },
-            reason: change.evaluate_all.clone(),
-            changed_forms: change.changed_forms,
-            affected_keys: change.affected_keys.len(),
-            queries: plan.queries.len(),
-            evaluated: folded.evaluated,
-            skipped: plan.queries.len() - folded.evaluated,
-        },
+        settings: settings(options),
+        evaluation: evaluation_info(&keyed.change, plan.queries.len(), folded.evaluated),
         summary: folded.summary,
         queries: changes,
         quality,
@@ -486,6 +467,33 @@ pub fn run_opened(
         report,
         runs: folded.runs,
     })
+}
+
+fn settings(options: &PreviewOptions) -> Settings {
+    Settings {
+        scoring: options.scoring,
+        ranking_definition: options.scoring.definition(),
+        top_k: options.top_k,
+        depth: options.depth,
+        rbo_p: options.rbo_p,
+    }
+}
+
+/// How the change was reduced, and how many of the `queries` planned were run.
+fn evaluation_info(change: &ChangeSet, queries: usize, evaluated: usize) -> EvaluationInfo {
+    EvaluationInfo {
+        strategy: if change.evaluate_all.is_some() {
+            "all".into()
+        } else {
+            "affected".into()
+        },
+        reason: change.evaluate_all.clone(),
+        changed_forms: change.changed_forms,
+        affected_keys: change.affected_keys.len(),
+        queries,
+        evaluated,
+        skipped: queries - evaluated,
+    }
 }
 
 /// The documents' id order, kept beside the index: it depends on the corpus alone, which
