@@ -216,7 +216,11 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         Ok(ExitCode::SUCCESS)
     } else {
         for b in &report.gate.breaches {
-            eprintln!("gate: {}: {}", b.limit, b.reason);
+            eprintln!(
+                "gate: {}: {}",
+                b.limit,
+                lexdelta::report::style::clean_line(&b.reason)
+            );
         }
         Ok(ExitCode::from(1))
     }
