@@ -252,6 +252,31 @@ fn syntax_error(err: &serde_saphyr::Error, shape: &Shape) -> SyntaxError {
         _ => message,
     }
     .to_string();
+    // The parser's own words name its settings ("configured policy", "DuplicateKeyPolicy"),
+    // which a rule file's author cannot reach: say what the file holds instead.
+    let plain = |message: &str, help: &'static str| SyntaxError {
+        at,
+        message: message.to_string(),
+        help,
+    };
+    if message.contains("non-finite float") {
+        return plain(
+            "a number that is not finite (infinite, not a number, or too large)",
+            "write an ordinary number",
+        );
+    }
+    if message.contains("merge keys") {
+        return plain(
+            "a YAML merge key (`<<`); rule files take plain mappings",
+            "write the entries out instead of merging them in",
+        );
+    }
+    if message.contains("duplicate mapping key") {
+        return plain(
+            "a key written twice in one mapping",
+            "keep one of the two entries; a mapping holds each key once",
+        );
+    }
     let over_budget = message.contains("budget breached")
         || message.contains("alias replay")
         || message.contains("expands to more than");
