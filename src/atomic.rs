@@ -106,7 +106,10 @@ pub fn check_output(path: &Path, overwrite: bool) -> Result<(), WriteError> {
         .prefix(".lexdelta-")
         .tempfile_in(dir)
         .map(drop)
-        .map_err(|source| WriteError::Io { path: shown, source })
+        .map_err(|source| WriteError::Io {
+            path: shown,
+            source,
+        })
 }
 
 /// The file a path names, for comparing two paths: its directory resolved, then its name.
@@ -217,7 +220,13 @@ mod tests {
         for special in ["/dev/null", "/dev/full"] {
             let err = write_file(Path::new(special), b"x", true).unwrap_err();
             assert!(
-                matches!(err, WriteError::NotRegular { what: "a device", .. }),
+                matches!(
+                    err,
+                    WriteError::NotRegular {
+                        what: "a device",
+                        ..
+                    }
+                ),
                 "{err}"
             );
         }

@@ -62,19 +62,27 @@ fn outputs_are_regular_files_or_nothing() {
         ("/dev/null", "/dev/null is a device, not a regular file"),
         ("/dev/full", "/dev/full is a device, not a regular file"),
         ("taken", "taken is a directory, not a regular file"),
-        ("link.dot", "link.dot is a symbolic link, not a regular file"),
-        ("no/such/dir/g.dot", "the directory no/such/dir does not exist"),
+        (
+            "link.dot",
+            "link.dot is a symbolic link, not a regular file",
+        ),
+        (
+            "no/such/dir/g.dot",
+            "the directory no/such/dir does not exist",
+        ),
     ] {
         let run = lexdelta(d, &["lint", "--rules", &rules, "--graph", out]);
         assert_eq!(run.code, 2, "{out}: {}", run.stderr);
         assert!(run.stderr.contains(says), "{out}: {}", run.stderr);
     }
-    assert_eq!(std::fs::read_to_string(d.join("target.dot")).unwrap(), "keep me");
+    assert_eq!(
+        std::fs::read_to_string(d.join("target.dot")).unwrap(),
+        "keep me"
+    );
     assert_eq!(files_in(d), ["link.dot", "taken", "target.dot"]);
     // A regular file is replaced and keeps its mode.
     use std::os::unix::fs::PermissionsExt;
-    std::fs::set_permissions(d.join("target.dot"), std::fs::Permissions::from_mode(0o640))
-        .unwrap();
+    std::fs::set_permissions(d.join("target.dot"), std::fs::Permissions::from_mode(0o640)).unwrap();
     let run = lexdelta(d, &["lint", "--rules", &rules, "--graph", "target.dot"]);
     assert!(run.code == 0 || run.code == 1, "{}", run.stderr);
     assert!(
@@ -82,7 +90,10 @@ fn outputs_are_regular_files_or_nothing() {
             .unwrap()
             .starts_with("digraph")
     );
-    let mode = std::fs::metadata(d.join("target.dot")).unwrap().permissions().mode();
+    let mode = std::fs::metadata(d.join("target.dot"))
+        .unwrap()
+        .permissions()
+        .mode();
     assert_eq!(mode & 0o777, 0o640);
     assert_eq!(files_in(d), ["link.dot", "taken", "target.dot"]);
 }
@@ -155,7 +166,12 @@ impl Sample {
         let found: Vec<PathBuf> = std::fs::read_dir(&cache)
             .unwrap()
             .map(|e| e.unwrap().path())
-            .filter(|p| p.file_name().unwrap().to_string_lossy().starts_with("surface-"))
+            .filter(|p| {
+                p.file_name()
+                    .unwrap()
+                    .to_string_lossy()
+                    .starts_with("surface-")
+            })
             .collect();
         assert_eq!(found.len(), 1, "{found:?}");
         found[0].clone()
@@ -168,7 +184,11 @@ fn escape_sequences_from_the_corpus_never_reach_the_terminal() {
     let run = sample.preview("text", &["--no-cache"]);
     assert_eq!(run.code, 0, "{}", run.stderr);
     assert!(run.stdout.contains("Buggy"), "{}", run.stdout);
-    assert!(run.stdout.contains("\\u{1b}]0;owned\\u{7}"), "{}", run.stdout);
+    assert!(
+        run.stdout.contains("\\u{1b}]0;owned\\u{7}"),
+        "{}",
+        run.stdout
+    );
     assert!(!run.stdout.contains('\u{1b}') && !run.stdout.contains('\u{7}'));
     assert!(!run.stderr.contains('\u{1b}'));
 }
@@ -181,7 +201,11 @@ fn a_damaged_cache_is_rebuilt_and_the_report_is_unchanged() {
     let cold = sample.preview("json", &[]);
     assert_eq!(cold.code, 0, "{}", cold.stderr);
     let warm = sample.preview("text", &[]);
-    assert!(warm.stdout.contains("surface index: reused"), "{}", warm.stdout);
+    assert!(
+        warm.stdout.contains("surface index: reused"),
+        "{}",
+        warm.stdout
+    );
     let kinds = [
         "idx",
         "pos",
@@ -229,7 +253,10 @@ fn a_damaged_cache_is_rebuilt_and_the_report_is_unchanged() {
     }
     // Bytes flipped with the modification time put back: --verify-cache finds them.
     let dir = sample.index_dir();
-    let idx = files_in(&dir).into_iter().find(|n| n.ends_with(".idx")).unwrap();
+    let idx = files_in(&dir)
+        .into_iter()
+        .find(|n| n.ends_with(".idx"))
+        .unwrap();
     let path = dir.join(&idx);
     let time = std::fs::metadata(&path).unwrap().modified().unwrap();
     let mut bytes = std::fs::read(&path).unwrap();
@@ -251,7 +278,10 @@ fn a_damaged_cache_is_rebuilt_and_the_report_is_unchanged() {
     std::fs::write(killed.join("lexdelta-build.lock"), "").unwrap();
     std::fs::remove_dir_all(sample.index_dir()).unwrap();
     assert_eq!(sample.preview("json", &[]).stdout, cold.stdout);
-    assert!(!killed.exists(), "the killed build's directory is cleaned up");
+    assert!(
+        !killed.exists(),
+        "the killed build's directory is cleaned up"
+    );
 }
 
 #[test]
@@ -279,6 +309,10 @@ fn stemcheck_over_a_corpus_without_words_is_an_error() {
         );
         assert_eq!(run.code, 2, "{corpus}: {}{}", run.stdout, run.stderr);
         assert!(run.stderr.contains(corpus), "{corpus}: {}", run.stderr);
-        assert!(run.stdout.is_empty(), "no figures are printed: {}", run.stdout);
+        assert!(
+            run.stdout.is_empty(),
+            "no figures are printed: {}",
+            run.stdout
+        );
     }
 }

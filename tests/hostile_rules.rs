@@ -47,7 +47,11 @@ fn refused(text: &[u8], at: &str, says: &str) {
     let run = lexdelta(dir.path(), &["lint", "--rules", "rules"]);
     assert_eq!(run.code, 2, "{at}: {}", run.stderr);
     assert!(run.stderr.contains(at), "want {at:?} in:\n{}", run.stderr);
-    assert!(run.stderr.contains(says), "want {says:?} in:\n{}", run.stderr);
+    assert!(
+        run.stderr.contains(says),
+        "want {says:?} in:\n{}",
+        run.stderr
+    );
     assert!(
         !run.stderr.contains('\u{1b}'),
         "no raw escape reaches the terminal"
@@ -126,9 +130,16 @@ fn patterns() {
     for i in 0..40 {
         many.push_str(&format!("  - pattern: \"x{i}\\\\w{{20}}\"\n"));
     }
-    refused(many.as_bytes(), "rules/a.yaml:", "too large to compile together");
+    refused(
+        many.as_bytes(),
+        "rules/a.yaml:",
+        "too large to compile together",
+    );
     // A 1 MB pattern is quoted by its start and length, not echoed.
-    let huge = format!("{HEAD}exempt:\n  - pattern: \"({})\"\n", "ab|".repeat(350_000));
+    let huge = format!(
+        "{HEAD}exempt:\n  - pattern: \"({})\"\n",
+        "ab|".repeat(350_000)
+    );
     let dir = tempfile::tempdir().unwrap();
     std::fs::create_dir(dir.path().join("rules")).unwrap();
     std::fs::write(dir.path().join("rules/a.yaml"), &huge).unwrap();
@@ -136,7 +147,11 @@ fn patterns() {
     assert_eq!(run.code, 2);
     assert!(run.stderr.contains("rules/a.yaml:4:14"), "{}", run.stderr);
     assert!(run.stderr.contains("bytes in all)"), "{}", run.stderr);
-    assert!(run.stderr.len() < 2_000, "{} bytes of stderr", run.stderr.len());
+    assert!(
+        run.stderr.len() < 2_000,
+        "{} bytes of stderr",
+        run.stderr.len()
+    );
 }
 
 #[test]
@@ -195,15 +210,26 @@ fn symbolic_links_and_special_files() {
         make(&rules);
         let run = lexdelta(dir.path(), &["lint", "--rules", "rules"]);
         assert_eq!(run.code, 2, "{name}: {}", run.stderr);
-        assert!(run.stderr.contains("rules/b.yaml"), "{name}: {}", run.stderr);
+        assert!(
+            run.stderr.contains("rules/b.yaml"),
+            "{name}: {}",
+            run.stderr
+        );
         assert!(run.stderr.contains(says), "{name}: {}", run.stderr);
-        assert!(!run.stderr.contains("hunter2"), "{name}: a secret was quoted");
+        assert!(
+            !run.stderr.contains("hunter2"),
+            "{name}: a secret was quoted"
+        );
     }
     // A link to a rule file inside the ruleset is read.
     let dir = tempfile::tempdir().unwrap();
     let rules = dir.path().join("rules");
     std::fs::create_dir_all(rules.join("shared")).unwrap();
-    std::fs::write(rules.join("shared/a.yml.txt"), format!("{HEAD}exempt: [x]\n")).unwrap();
+    std::fs::write(
+        rules.join("shared/a.yml.txt"),
+        format!("{HEAD}exempt: [x]\n"),
+    )
+    .unwrap();
     symlink(rules.join("shared/a.yml.txt"), rules.join("a.yaml")).unwrap();
     assert_eq!(lexdelta(dir.path(), &["lint", "--rules", "rules"]).code, 0);
     // A file named like a rule file that is no rule file is located, not quoted.
@@ -240,7 +266,10 @@ fn huge_valid_rulesets_are_quick() {
     .unwrap();
     let run = lexdelta(dir.path(), &["trace", "--rules", "rules", "zbaaa"]);
     assert_eq!(run.code, 0, "{}", run.stderr);
-    assert!(run.stdout.contains("zfsyd"), "every member is an alternative");
+    assert!(
+        run.stdout.contains("zfsyd"),
+        "every member is an alternative"
+    );
     let big = dir.path().join("big");
     std::fs::create_dir(&big).unwrap();
     let mut text = format!("{HEAD}synonyms:\n");

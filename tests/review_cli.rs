@@ -229,7 +229,8 @@ fn a_directory_named_like_the_base_revision_cannot_bypass_the_gate() {
     let repo = tempfile::tempdir().unwrap();
     let r = repo.path();
     std::fs::create_dir(r.join("rules")).unwrap();
-    let rules = "format: 1\nrevision: 1\nsynonyms:\n  - id: pram\n    equivalent: [pram, pushchair]\n";
+    let rules =
+        "format: 1\nrevision: 1\nsynonyms:\n  - id: pram\n    equivalent: [pram, pushchair]\n";
     write(r, "rules/synonyms.yaml", rules);
     write(
         r,
@@ -247,7 +248,11 @@ fn a_directory_named_like_the_base_revision_cannot_bypass_the_gate() {
     git(r, &["commit", "-q", "-m", "rules"]);
     git(r, &["update-ref", "refs/remotes/origin/main", "HEAD"]);
     // The change empties "pram", and plants origin/main/ with a gate that allows it.
-    write(r, "rules/synonyms.yaml", "format: 1\nrevision: 2\nsynonyms: []\n");
+    write(
+        r,
+        "rules/synonyms.yaml",
+        "format: 1\nrevision: 2\nsynonyms: []\n",
+    );
     std::fs::create_dir_all(r.join("origin/main")).unwrap();
     write(r, "origin/main/synonyms.yaml", rules);
     write(
@@ -266,9 +271,14 @@ fn a_directory_named_like_the_base_revision_cannot_bypass_the_gate() {
     recipe(&["--base", "origin/main"])
         .assert()
         .code(1)
-        .stdout(predicate::str::contains("review origin/main:rules -> rules"))
+        .stdout(predicate::str::contains(
+            "review origin/main:rules -> rules",
+        ))
         .stderr(predicate::str::contains(
             "gate: max_emptied_searches: \"pram\"",
+        ))
+        .stderr(predicate::str::contains(
+            "the directory \"origin/main\" in the working tree is not read",
         ));
     // The planted directory is read only when asked for by --base-dir (and then it is the
     // user's own choice).

@@ -114,7 +114,18 @@ impl Side {
             Side::Revision(rev) => {
                 let repo = std::env::current_dir()?;
                 match rules::load_at_revision(&repo, rev, rules_dir) {
-                    Ok(ruleset) => Ok(ruleset),
+                    Ok(ruleset) => {
+                        if Path::new(rev).is_dir() {
+                            // Said aloud: in CI this is a change trying to stand in for
+                            // the base.
+                            eprintln!(
+                                "lexdelta: note: {option} {rev:?} reads the git revision; the \
+                                 directory {rev:?} in the working tree is not read (pass \
+                                 {option}-dir to compare a directory)"
+                            );
+                        }
+                        Ok(ruleset)
+                    }
                     // Not a revision, but a directory of that name: say which option reads
                     // directories, never read it in the revision's place.
                     Err(err @ rules::RulesError::Git(_)) if Path::new(rev).is_dir() => {

@@ -248,7 +248,10 @@ fn remove_killed_builds(cache_dir: &Path) {
             continue;
         }
         let dir = entry.path();
-        let killed = match fs::OpenOptions::new().write(true).open(dir.join(BUILD_LOCK)) {
+        let killed = match fs::OpenOptions::new()
+            .write(true)
+            .open(dir.join(BUILD_LOCK))
+        {
             Ok(lock) => fs4::fs_std::FileExt::try_lock_exclusive(&lock).unwrap_or(false),
             Err(_) => entry
                 .metadata()
@@ -470,7 +473,9 @@ mod tests {
     }
 
     fn big_corpus() -> Corpus {
-        let words = ["tram", "trams", "ferry", "ferries", "bus", "pram", "ride", "route"];
+        let words = [
+            "tram", "trams", "ferry", "ferries", "bus", "pram", "ride", "route",
+        ];
         let mut c = corpus();
         c.fields.push(FieldSpec {
             name: "title".into(),
@@ -506,7 +511,9 @@ mod tests {
 
     enum Damage {
         /// Bytes flipped in the middle; `keep_time` puts the modification time back.
-        Flip { keep_time: bool },
+        Flip {
+            keep_time: bool,
+        },
         Truncate,
         Delete,
     }

@@ -27,8 +27,8 @@ mod sidecar;
 
 pub use build::{build_key_index, build_surface_index};
 pub use cache::{
-    CacheStatus, FORMAT_VERSION, Opened, Verify, default_verify, open_or_build, open_or_build_checked,
-    set_default_verify,
+    CacheStatus, FORMAT_VERSION, Opened, Verify, default_verify, open_or_build,
+    open_or_build_checked, set_default_verify,
 };
 pub use forms::SurfaceForms;
 pub use reader::{Frequencies, IndexPostings, Postings, ReadCache};

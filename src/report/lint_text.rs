@@ -43,9 +43,7 @@ pub fn render(report: &LintReport, sources: &[SourceFile], style: Style) -> Stri
         }
         out.push('\n');
         let line = texts.get(file).and_then(|text| {
-            let of_file = lines
-                .entry(file)
-                .or_insert_with(|| text.lines().collect());
+            let of_file = lines.entry(file).or_insert_with(|| text.lines().collect());
             of_file
                 .get(finding.origin.line.saturating_sub(1) as usize)
                 .copied()

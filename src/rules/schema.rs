@@ -870,11 +870,7 @@ fn quoted_pattern(source: &str) -> String {
     if source.len() <= MAX_QUOTED_PATTERN {
         format!("{source:?}")
     } else {
-        format!(
-            "{:?}… ({} bytes in all)",
-            shorten(source, 60),
-            source.len()
-        )
+        format!("{:?}… ({} bytes in all)", shorten(source, 60), source.len())
     }
 }
 

@@ -189,7 +189,9 @@ fn prescan(text: &str) -> Result<Shape, SyntaxError> {
             let tag_at = span.tag_start.as_ref().map_or(at, marker_position);
             return Err(SyntaxError {
                 at: Some(tag_at),
-                message: format!("a YAML tag `{written}`; rule files take plain values, without tags"),
+                message: format!(
+                    "a YAML tag `{written}`; rule files take plain values, without tags"
+                ),
                 help: "remove the tag and write the value as plain text (a tag such as `!!binary` \
                        would turn the value into something the file does not show)",
             });
@@ -325,7 +327,9 @@ fn take_node_budget<E: de::Error>() -> Result<(), E> {
     NODES_LEFT.with(|left| {
         let n = left.get();
         if n == 0 {
-            Err(E::custom("the document expands to more than its node budget"))
+            Err(E::custom(
+                "the document expands to more than its node budget",
+            ))
         } else {
             left.set(n - 1);
             Ok(())

@@ -51,19 +51,102 @@ pub struct Tally {
 pub const HANG: Duration = Duration::from_secs(1);
 
 const WORDS: &[&str] = &[
-    "pram", "stroller", "buggy", "tram", "lift", "elevator", "ride", "route", "mice",
-    "pram", "stroller", "tram", "trams", "light rail", "ferry", "ferries", "left", "leave",
-    "mice", "mouse", "university", "universe", "the", "of", "on", "no", "yes", "null", "~",
-    "Ünïcödé", "straße", "İstanbul", "ǅemal", "ﬁne", "e\u{301}", "東京", "🚋", "🚋🚋", "?!",
-    "-", "'", "\"", "a\tb", "a\u{1b}[31mb", "\u{202e}rtl", "\u{feff}bom", "\u{0}", "x y z",
-    "park and ride", "p+r", "***", "#hash", "&anchor", "*alias", "!tag", "%", "@", "`",
-    "{a: b}", "[x]", ":", "- item", "0x1F", "1e999", "-0", ".inf", "NaN", "true", "",
+    "pram",
+    "stroller",
+    "buggy",
+    "tram",
+    "lift",
+    "elevator",
+    "ride",
+    "route",
+    "mice",
+    "pram",
+    "stroller",
+    "tram",
+    "trams",
+    "light rail",
+    "ferry",
+    "ferries",
+    "left",
+    "leave",
+    "mice",
+    "mouse",
+    "university",
+    "universe",
+    "the",
+    "of",
+    "on",
+    "no",
+    "yes",
+    "null",
+    "~",
+    "Ünïcödé",
+    "straße",
+    "İstanbul",
+    "ǅemal",
+    "ﬁne",
+    "e\u{301}",
+    "東京",
+    "🚋",
+    "🚋🚋",
+    "?!",
+    "-",
+    "'",
+    "\"",
+    "a\tb",
+    "a\u{1b}[31mb",
+    "\u{202e}rtl",
+    "\u{feff}bom",
+    "\u{0}",
+    "x y z",
+    "park and ride",
+    "p+r",
+    "***",
+    "#hash",
+    "&anchor",
+    "*alias",
+    "!tag",
+    "%",
+    "@",
+    "`",
+    "{a: b}",
+    "[x]",
+    ":",
+    "- item",
+    "0x1F",
+    "1e999",
+    "-0",
+    ".inf",
+    "NaN",
+    "true",
+    "",
 ];
 
 const PATTERNS: &[&str] = &[
-    "[a-z]+", "\\w+", "\\b", "^", "$", "(", ")", "[", "a{1000}", "\\w{50}", "(?i)tram",
-    "[^\\s\\S]", ".*", "a|", "(a|b)*c", "\\p{Greek}+", "\\d{2,}", "x{0}", "(?:)", "[\\w'-]+",
-    "\\", "(?P<n>a)", "a{2,1}", "[z-a]",
+    "[a-z]+",
+    "\\w+",
+    "\\b",
+    "^",
+    "$",
+    "(",
+    ")",
+    "[",
+    "a{1000}",
+    "\\w{50}",
+    "(?i)tram",
+    "[^\\s\\S]",
+    ".*",
+    "a|",
+    "(a|b)*c",
+    "\\p{Greek}+",
+    "\\d{2,}",
+    "x{0}",
+    "(?:)",
+    "[\\w'-]+",
+    "\\",
+    "(?P<n>a)",
+    "a{2,1}",
+    "[z-a]",
 ];
 
 fn word(rng: &mut ChaCha8Rng) -> String {
@@ -114,15 +197,7 @@ pub fn rule_file(rng: &mut ChaCha8Rng) -> String {
     if valid_revision {
         out.push_str("revision: 3\n");
     } else if rng.random_bool(0.5) {
-        let r = [
-            "1",
-            "0",
-            "-3",
-            "7",
-            "99999999999999999999",
-            "x",
-            "1.5",
-        ];
+        let r = ["1", "0", "-3", "7", "99999999999999999999", "x", "1.5"];
         out.push_str(&format!("revision: {}\n", r.choose(rng).unwrap()));
     }
     let sections = rng.random_range(0..5);
@@ -369,7 +444,9 @@ pub fn fuzz_rules(seed: u64, inputs: u64, tally: &mut Tally) {
 }
 
 fn small_corpus() -> Corpus {
-    let words = ["tram", "trams", "ferry", "ferries", "bus", "pram", "ride", "straße"];
+    let words = [
+        "tram", "trams", "ferry", "ferries", "bus", "pram", "ride", "straße",
+    ];
     Corpus {
         source: "fuzz".into(),
         fields: vec![
@@ -410,7 +487,10 @@ fn copy_dir(from: &Path, to: &Path) {
             std::fs::copy(entry.path(), &target).unwrap();
             // Copies keep their times, as the cache did.
             let time = entry.metadata().unwrap().modified().unwrap();
-            let f = std::fs::OpenOptions::new().write(true).open(&target).unwrap();
+            let f = std::fs::OpenOptions::new()
+                .write(true)
+                .open(&target)
+                .unwrap();
             f.set_modified(time).unwrap();
         }
     }
