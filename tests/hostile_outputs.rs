@@ -2,43 +2,14 @@
 //! or missing directories; a cached index damaged every way; terminal escape sequences in
 //! corpus titles and queries; a corpus with nothing for `stemcheck` to measure. Bad input
 //! exits 2 with a message naming the path, valid input 0; nothing panics, no output file
-//! is left behind by a failed run, and each run takes under two seconds.
+//! is left behind by a failed run, and each run takes under two seconds of CPU.
 
 use std::path::{Path, PathBuf};
-use std::process::Command;
-use std::time::{Duration, Instant};
+mod hostile_support;
 
-const LIMIT: Duration = Duration::from_secs(2);
+use hostile_support::{Run, lexdelta};
+
 const ROOT: &str = env!("CARGO_MANIFEST_DIR");
-
-struct Run {
-    code: i32,
-    stdout: String,
-    stderr: String,
-}
-
-fn lexdelta(dir: &Path, args: &[&str]) -> Run {
-    let start = Instant::now();
-    let out = Command::new(env!("CARGO_BIN_EXE_lexdelta"))
-        .current_dir(dir)
-        .env("NO_COLOR", "1")
-        .args(args)
-        .output()
-        .unwrap();
-    let took = start.elapsed();
-    let run = Run {
-        code: out.status.code().unwrap_or(-1),
-        stdout: String::from_utf8_lossy(&out.stdout).into_owned(),
-        stderr: String::from_utf8_lossy(&out.stderr).into_owned(),
-    };
-    assert!(
-        !run.stderr.contains("panicked") && run.code != 101,
-        "{args:?} panicked:\n{}",
-        run.stderr
-    );
-    assert!(took < LIMIT, "{args:?} took {took:?}");
-    run
-}
 
 fn files_in(dir: &Path) -> Vec<String> {
     let mut names: Vec<String> = std::fs::read_dir(dir)
