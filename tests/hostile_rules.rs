@@ -10,7 +10,6 @@ mod hostile_support;
 
 use hostile_support::lexdelta;
 
-
 /// A ruleset of one file `a.yaml` holding `text`, linted: exit 2, and the message holds
 /// `at` (file:line[:col]) and `says`.
 fn refused(text: &[u8], at: &str, says: &str) {
@@ -143,7 +142,8 @@ fn symbolic_links_and_special_files() {
     let secret_dir = tempfile::tempdir().unwrap();
     let secret = secret_dir.path().join("secrets.yaml");
     std::fs::write(&secret, "password: hunter2-do-not-print\n").unwrap();
-    let cases: Vec<(&str, Box<dyn Fn(&Path)>, &str)> = vec![
+    type Make<'a> = Box<dyn Fn(&Path) + 'a>;
+    let cases: Vec<(&str, Make, &str)> = vec![
         (
             "outside",
             Box::new(|rules: &Path| symlink(&secret, rules.join("b.yaml")).unwrap()),
