@@ -40,6 +40,8 @@ const LENGTHS: &str = "lexdelta-lengths.bin";
 /// Held (locked) by the run building in a `.build-*` directory.
 const BUILD_LOCK: &str = "lexdelta-build.lock";
 const BUILD_PREFIX: &str = ".build-";
+/// A damaged or unfinished index moved aside to be removed.
+const STALE_PREFIX: &str = ".stale-";
 /// A `.build-*` directory without a lock file this old is a killed build's.
 const UNLOCKED_BUILD_AGE: Duration = Duration::from_secs(600);
 /// Files this small are checked by checksum on every run.
@@ -169,8 +171,17 @@ pub fn open_or_build_checked(
     fs::create_dir_all(cache_dir).map_err(io(cache_dir))?;
     remove_killed_builds(cache_dir);
     if target.exists() {
-        // Not a complete build, or a damaged one: never trusted.
-        fs::remove_dir_all(&target).map_err(io(&target))?;
+        // Not a complete build, or a damaged one: never trusted. It is moved aside in one
+        // rename, then removed: a removal that fails (a file that appears in it meanwhile,
+        // from a reader of the damaged copy still shutting down) never stops the run, and
+        // a later run finishes it.
+        let aside = tempfile::Builder::new()
+            .prefix(STALE_PREFIX)
+            .tempdir_in(cache_dir)
+            .map_err(io(cache_dir))?
+            .keep();
+        fs::rename(&target, &aside).map_err(io(&target))?;
+        let _ = fs::remove_dir_all(&aside);
     }
     let tmp = tempfile::Builder::new()
         .prefix(BUILD_PREFIX)
@@ -234,20 +245,26 @@ pub fn open_or_build_checked(
 }
 
 /// Removes `.build-*` directories left by killed builds: those whose lock no run holds
-/// (or, from a build killed before it made its lock, older than ten minutes). Best effort:
-/// a directory that cannot be removed is left for a later run.
+/// (or, from a build killed before it made its lock, older than ten minutes), and
+/// `.stale-*` directories a run moved aside but could not remove. Best effort: a
+/// directory that cannot be removed is left for a later run.
 fn remove_killed_builds(cache_dir: &Path) {
     let Ok(entries) = fs::read_dir(cache_dir) else {
         return;
     };
     for entry in entries.flatten() {
-        let name = entry.file_name();
-        if !name.to_string_lossy().starts_with(BUILD_PREFIX)
-            || !entry.file_type().is_ok_and(|t| t.is_dir())
-        {
+        let name = entry.file_name().to_string_lossy().into_owned();
+        if !entry.file_type().is_ok_and(|t| t.is_dir()) {
             continue;
         }
         let dir = entry.path();
+        if name.starts_with(STALE_PREFIX) {
+            let _ = fs::remove_dir_all(&dir);
+            continue;
+        }
+        if !name.starts_with(BUILD_PREFIX) {
+            continue;
+        }
         let killed = match fs::OpenOptions::new()
             .write(true)
             .open(dir.join(BUILD_LOCK))
@@ -624,12 +641,17 @@ mod tests {
         fs::create_dir(&live).unwrap();
         let lock = fs::File::create(live.join(BUILD_LOCK)).unwrap();
         assert!(fs4::fs_std::FileExt::try_lock_exclusive(&lock).unwrap());
+        // A damaged index a run moved aside but could not remove.
+        let stale = dir.path().join(".stale-left");
+        fs::create_dir(&stale).unwrap();
+        fs::write(stale.join("x.idx"), b"damaged").unwrap();
         // Just made, without a lock file: a build that has not made its lock yet.
         let young = dir.path().join(".build-young");
         fs::create_dir(&young).unwrap();
         let surface = SurfaceStage::from_pipeline(&Pipeline::default());
         open_or_build(&corpus(), &surface, dir.path(), &NoProgress).unwrap();
         assert!(!killed.exists(), "a killed build is removed");
+        assert!(!stale.exists(), "a damaged index moved aside is removed");
         assert!(live.exists(), "a build in progress is left alone");
         assert!(young.exists(), "a build that may be starting is left alone");
     }
