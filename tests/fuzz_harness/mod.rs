@@ -473,6 +473,7 @@ fn small_corpus() -> Corpus {
             })
             .collect(),
         fingerprint: "fuzz-corpus".into(),
+        warnings: Vec::new(),
     }
 }
 
