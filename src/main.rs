@@ -24,7 +24,8 @@ fn main() -> ExitCode {
             if err.is_broken_pipe() {
                 return ExitCode::SUCCESS;
             }
-            eprintln!("{err}");
+            // Messages quote file names, queries and titles: never raw control characters.
+            eprintln!("{}", lexdelta::report::style::clean(&err.to_string()));
             ExitCode::from(2)
         }
     }

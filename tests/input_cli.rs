@@ -39,11 +39,17 @@ fn fix(name: &str) -> String {
 
 /// `preview` or `review` of `rules` → `head` over the given inputs.
 fn compare(command: &str, head: &str, corpus: &str, queries: &str, extra: &[&str]) -> Run {
+    // `review --base` takes a git revision; directories are `--base-dir` and `--head-dir`.
+    let (base_option, head_option) = if command == "review" {
+        ("--base-dir", "--head-dir")
+    } else {
+        ("--base", "--head")
+    };
     let mut args = vec![
         command,
-        "--base",
+        base_option,
         "rules",
-        "--head",
+        head_option,
         head,
         "--corpus",
         corpus,

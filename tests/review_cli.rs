@@ -220,3 +220,114 @@ fn a_git_repository_is_reviewed_without_touching_the_working_tree() {
             "is not a revision lexdelta accepts",
         ));
 }
+
+/// The CI recipe (`--base origin/main`) cannot be switched off by a change that commits a
+/// directory named like the base revision holding a ruleset without gate limits: `--base`
+/// always reads the revision from git. A directory is read only through `--base-dir`.
+#[test]
+fn a_directory_named_like_the_base_revision_cannot_bypass_the_gate() {
+    let repo = tempfile::tempdir().unwrap();
+    let r = repo.path();
+    std::fs::create_dir(r.join("rules")).unwrap();
+    let rules =
+        "format: 1\nrevision: 1\nsynonyms:\n  - id: pram\n    equivalent: [pram, pushchair]\n";
+    write(r, "rules/synonyms.yaml", rules);
+    write(
+        r,
+        "rules/gate.yaml",
+        "format: 1\nrevision: 1\ngate:\n  max_emptied_searches: 0\n",
+    );
+    write(
+        r,
+        "docs.jsonl",
+        "{\"id\":\"a\",\"title\":\"Buggies\",\"body\":\"Pushchairs ride free.\"}\n",
+    );
+    write(r, "queries.txt", "pram\n");
+    git(r, &["init", "-q", "-b", "main"]);
+    git(r, &["add", "."]);
+    git(r, &["commit", "-q", "-m", "rules"]);
+    git(r, &["update-ref", "refs/remotes/origin/main", "HEAD"]);
+    // The change empties "pram", and plants origin/main/ with a gate that allows it.
+    write(
+        r,
+        "rules/synonyms.yaml",
+        "format: 1\nrevision: 2\nsynonyms: []\n",
+    );
+    std::fs::create_dir_all(r.join("origin/main")).unwrap();
+    write(r, "origin/main/synonyms.yaml", rules);
+    write(
+        r,
+        "origin/main/gate.yaml",
+        "format: 1\nrevision: 1\ngate:\n  max_emptied_searches: 1000000\n",
+    );
+    let recipe = |base: &[&str]| {
+        let mut cmd = lexdelta(r);
+        cmd.arg("review")
+            .args(base)
+            .args(["--corpus", "docs.jsonl", "--queries", "queries.txt"])
+            .args(["--no-cache", "--markdown", "review.md"]);
+        cmd
+    };
+    recipe(&["--base", "origin/main"])
+        .assert()
+        .code(1)
+        .stdout(predicate::str::contains(
+            "review origin/main:rules -> rules",
+        ))
+        .stderr(predicate::str::contains(
+            "gate: max_emptied_searches: \"pram\"",
+        ))
+        .stderr(predicate::str::contains(
+            "the directory \"origin/main\" in the working tree is not read",
+        ));
+    // The planted directory is read only when asked for by --base-dir (and then it is the
+    // user's own choice).
+    recipe(&["--base-dir", "origin/main"]).assert().code(0);
+    // A name that is no revision but is a directory is refused with the option to use.
+    std::fs::create_dir_all(r.join("old-rules")).unwrap();
+    write(r, "old-rules/synonyms.yaml", rules);
+    recipe(&["--base", "old-rules"])
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("pass --base-dir \"old-rules\""));
+    recipe(&["--base", "origin/main", "--base-dir", "old-rules"])
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("cannot be used with"));
+}
+
+/// Every output path is checked before anything is written: a bad last path leaves no
+/// first file behind, and two outputs may not name one file.
+#[test]
+fn outputs_are_checked_before_any_is_written() {
+    let dir = tempfile::tempdir().unwrap();
+    let d = dir.path();
+    let demo = |extra: &[&str]| {
+        let mut cmd = lexdelta(Path::new(ROOT));
+        cmd.args(["review", "--demo", "--no-cache"]).args(extra);
+        cmd
+    };
+    let md = d.join("a.md");
+    demo(&["--markdown"])
+        .arg(&md)
+        .arg("--html")
+        .arg(d.join("missing/b.html"))
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("does not exist; create it first"));
+    assert!(!md.exists(), "nothing is written when one output is bad");
+    demo(&["--markdown"])
+        .arg(&md)
+        .arg("--sarif")
+        .arg(d.join(".").join("a.md"))
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("name the same file"));
+    demo(&["--html", "/dev/null"])
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains(
+            "/dev/null is a device, not a regular file",
+        ));
+    assert_eq!(std::fs::read_dir(d).unwrap().count(), 0);
+}

@@ -72,10 +72,17 @@ pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
         }
     }
 
+    let exemptions = match exempt::Exemptions::new(literals, patterns) {
+        Ok(exemptions) => exemptions,
+        Err(too_large) => {
+            diagnostics.push(pattern_set_too_large(&ruleset, too_large));
+            exempt::Exemptions::default()
+        }
+    };
     let mut analyzer = Analyzer {
         surface: surface.clone(),
         stopwords,
-        exemptions: exempt::Exemptions::new(literals, patterns),
+        exemptions,
         lemmas: lemma::Lemmas::new(lemma_map),
         stem: ruleset.pipeline.stemmer.map(stem::Stem::new),
         synonyms: SynonymTable::default(),
@@ -87,17 +94,29 @@ pub fn compile(ruleset: Ruleset) -> Result<Analyzer, RulesError> {
         let mut phrase = |term: &Term| {
             let p = analyzer.phrase(&term.text);
             if p.keys.is_empty() {
-                diagnostics.push(
+                let at = Some(term.origin.position());
+                diagnostics.push(if analyzer.surface.tokens(&term.text).is_empty() {
+                    // Punctuation, symbols or emoji only: the tokenizer keeps nothing.
                     Diagnostic::new(
                         &term.origin.file,
-                        Some(term.origin.position()),
+                        at,
+                        format!("{:?} holds no word the tokenizer keeps", term.text),
+                    )
+                    .help(
+                        "write the member with letters or digits, or remove it \
+                         (punctuation, symbols and emoji are not words to the tokenizer)",
+                    )
+                } else {
+                    Diagnostic::new(
+                        &term.origin.file,
+                        at,
                         format!(
                             "{:?} has no words left after stopwords are dropped",
                             term.text
                         ),
                     )
-                    .help("remove it from the rule, or take its words off the stopword list"),
-                );
+                    .help("remove it from the rule, or take its words off the stopword list")
+                });
             }
             p
         };
@@ -177,6 +196,28 @@ fn single_form(
             None
         }
     }
+}
+
+fn pattern_set_too_large(ruleset: &Ruleset, err: exempt::PatternSetTooLarge) -> Diagnostic {
+    let rule = &ruleset.exemptions[err.rule];
+    let at = match &rule.kind {
+        ExemptKind::Pattern { source, .. } => &source.origin,
+        ExemptKind::Term(term) => &term.origin,
+    };
+    Diagnostic::new(
+        &at.file,
+        Some(at.position()),
+        format!(
+            "the {} exemption patterns are too large to compile together (over {} MiB); \
+             they outgrow the limit at this one",
+            err.patterns,
+            exempt::PATTERN_SET_LIMIT >> 20
+        ),
+    )
+    .help(
+        "use fewer or simpler patterns: list fixed words as literal exemptions, \
+         merge patterns that share a shape, avoid wide repetitions such as \\w{50}",
+    )
 }
 
 fn self_mapped(lemma: &Term, form: &str) -> Diagnostic {

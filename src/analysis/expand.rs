@@ -136,13 +136,17 @@ impl SynonymTable {
                 phrase: own.clone(),
                 rules: Vec::new(),
             }];
+            // Where each phrase already is among the alternatives: a set of 100k members
+            // makes 100k alternatives, each looked up once.
+            let mut placed: FxHashMap<&Phrase, usize> = FxHashMap::default();
+            placed.insert(&own, 0);
             for entry in matched {
                 let targets: &[Phrase] = match &self.rules[entry.rule] {
                     CompiledSynonym::Equivalent(members) => members,
                     CompiledSynonym::OneWay { to, .. } => to,
                 };
                 for phrase in targets {
-                    add_alternative(&mut alternatives, phrase, entry.rule, &own);
+                    add_alternative(&mut alternatives, &mut placed, phrase, entry.rule);
                 }
             }
             out.push(Expansion {
@@ -198,20 +202,25 @@ fn phrase_of(tokens: &[(u32, &str)]) -> Phrase {
     }
 }
 
-fn add_alternative(
+/// Adds `phrase` (offered by `rule`) to the alternatives, or `rule` to the alternative
+/// already holding it. `placed` says where each phrase is; the query's own phrase is at 0.
+fn add_alternative<'a>(
     alternatives: &mut Vec<Alternative>,
-    phrase: &Phrase,
+    placed: &mut FxHashMap<&'a Phrase, usize>,
+    phrase: &'a Phrase,
     rule: usize,
-    own: &Phrase,
 ) {
-    if let Some(existing) = alternatives.iter_mut().find(|a| &a.phrase == phrase) {
+    if let Some(&at) = placed.get(phrase) {
         // The query's own words stay rule-free; another rule offering the same phrase is
-        // recorded so attribution sees every rule involved.
-        if &existing.phrase != own && !existing.rules.contains(&rule) {
+        // recorded so attribution sees every rule involved. Rules arrive in ascending
+        // order, so a rule already recorded is the last one.
+        let existing = &mut alternatives[at];
+        if at != 0 && existing.rules.last() != Some(&rule) {
             existing.rules.push(rule);
         }
         return;
     }
+    placed.insert(phrase, alternatives.len());
     alternatives.push(Alternative {
         phrase: phrase.clone(),
         rules: vec![rule],

@@ -4,7 +4,7 @@ use std::path::PathBuf;
 use std::process::ExitCode;
 
 use lexdelta::analysis::SurfaceStage;
-use lexdelta::atomic::write_file;
+use lexdelta::atomic::{check_output, write_file};
 use lexdelta::import::wordnet::{ExceptionList, ImportOptions, PartOfSpeech, build_lemma_file};
 
 use super::{CliError, print};
@@ -36,6 +36,7 @@ pub struct Args {
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    check_output(&args.out, args.force)?;
     let list = ExceptionList::read(&args.wordnet, &args.pos)?;
     let mut options = ImportOptions::default();
     if let Some(dir) = &args.rules {

@@ -4,7 +4,7 @@ use std::path::PathBuf;
 use std::process::ExitCode;
 
 use lexdelta::analysis::Analyzer;
-use lexdelta::atomic::write_file;
+use lexdelta::atomic::{check_output, write_file};
 use lexdelta::corpus::read_documents;
 use lexdelta::lint::{LintConfig, LintInput, Vocabulary, checks, lint};
 use lexdelta::report::{Style, lint_dot, lint_json, lint_sarif, lint_text};
@@ -106,6 +106,9 @@ fn parse_level(raw: &str) -> Result<(String, Level), String> {
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    if let Some(path) = &args.graph {
+        check_output(path, true)?;
+    }
     let style = Style::for_stdout(args.color.choice);
     if args.list_checks {
         print(&lint_text::render_check_list(style))?;

@@ -28,6 +28,11 @@ Exit codes:
 pub struct Cli {
     #[command(subcommand)]
     command: Command,
+    /// Before using a cached sample index (preview, review), check every file of it against
+    /// its checksum, reading the whole index; without it, sizes, modification times and the
+    /// small files' checksums are checked. A damaged index is rebuilt either way.
+    #[arg(long, global = true)]
+    verify_cache: bool,
 }
 
 #[derive(Debug, Subcommand)]
@@ -74,6 +79,9 @@ impl<E: std::error::Error> From<E> for CliError {
 }
 
 pub fn run(cli: Cli) -> Result<ExitCode, CliError> {
+    if cli.verify_cache {
+        lexdelta::index::set_default_verify(lexdelta::index::Verify::Full);
+    }
     match cli.command {
         Command::Trace(args) => trace::run(args),
         Command::Import(args) => import::run(args),

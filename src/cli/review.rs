@@ -5,7 +5,7 @@ use std::process::ExitCode;
 use std::sync::Arc;
 
 use lexdelta::analysis::Analyzer;
-use lexdelta::atomic::write_file;
+use lexdelta::atomic::{check_outputs, write_file};
 use lexdelta::lint::LintConfig;
 use lexdelta::report::preview_text::Limits;
 use lexdelta::report::{Style, lint_sarif, review_json, review_markdown, review_text};
@@ -24,12 +24,14 @@ Examples:
       --markdown review.md --sarif lint.sarif
       in a git repository: the `rules` directory at origin/main vs the working tree
   lexdelta review --base v12 --head HEAD --rules search/rules ...
-  lexdelta review --base old-rules/ --head new-rules/ ...      two directories, no git
+  lexdelta review --base-dir old-rules/ --head-dir new-rules/ ...   two directories, no git
 
-BASE and HEAD are directories when such a directory exists, otherwise git revisions whose
-ruleset (the --rules directory) is read straight from git: no checkout, the working tree
-untouched. Gate limits come from the base ruleset's `gate:` section; the --max-* options
-override them.
+--base and --head name git revisions, always: their ruleset (the --rules directory) is read
+straight from git, with no checkout and the working tree untouched, whatever directories
+the working tree holds. --base-dir and --head-dir name directories. Without --head or
+--head-dir the head is the --rules directory in the working tree. Gate limits come from the
+base ruleset's `gate:` section; the --max-* options override them. In CI, take the base from
+a revision (--base): a directory in the change cannot stand in for it.
 
 A preview on a sample is evidence, not proof: if you depend on recall (legal discovery,
 clinical or safety documents), validate against your own full collection.
@@ -43,13 +45,24 @@ Exit codes:
 #[derive(Debug, clap::Args)]
 #[command(after_help = AFTER_HELP)]
 pub struct Args {
-    /// The base: a ruleset directory or a git revision.
-    #[arg(long, value_name = "REV|DIR", required_unless_present = "demo")]
+    /// The base: a git revision (branch, tag, commit) whose --rules directory is read from
+    /// git.
+    #[arg(
+        long,
+        value_name = "REV",
+        required_unless_present_any = ["demo", "base_dir"],
+        conflicts_with = "base_dir"
+    )]
     base: Option<String>,
-    /// The head: a ruleset directory or a git revision (default: the --rules directory in
-    /// the working tree).
-    #[arg(long, value_name = "REV|DIR")]
+    /// The base: a ruleset directory (instead of --base).
+    #[arg(long, value_name = "DIR")]
+    base_dir: Option<PathBuf>,
+    /// The head: a git revision (default: the --rules directory in the working tree).
+    #[arg(long, value_name = "REV", conflicts_with = "head_dir")]
     head: Option<String>,
+    /// The head: a ruleset directory (instead of --head).
+    #[arg(long, value_name = "DIR")]
+    head_dir: Option<PathBuf>,
     /// The ruleset directory inside the repository, for git revisions.
     #[arg(long, value_name = "DIR", default_value = "rules")]
     rules: String,
@@ -78,28 +91,81 @@ pub struct Args {
     sample: SampleArgs,
 }
 
-/// A directory if one exists at that path, otherwise a git revision of `rules_dir`.
-fn load_side(spec: &str, rules_dir: &str) -> Result<Ruleset, CliError> {
-    let path = Path::new(spec);
-    if path.is_dir() {
-        return Ok(rules::load_dir(path)?);
+/// Where one side's ruleset comes from: never guessed from the name.
+enum Side {
+    /// A git revision of the --rules directory.
+    Revision(String),
+    /// A ruleset directory.
+    Dir(PathBuf),
+}
+
+impl Side {
+    fn pick(rev: Option<&String>, dir: Option<&PathBuf>) -> Option<Side> {
+        match (rev, dir) {
+            (Some(rev), _) => Some(Side::Revision(rev.clone())),
+            (None, Some(dir)) => Some(Side::Dir(dir.clone())),
+            (None, None) => None,
+        }
     }
-    let repo = std::env::current_dir()?;
-    Ok(rules::load_at_revision(&repo, spec, rules_dir)?)
+
+    fn load(&self, option: &str, rules_dir: &str) -> Result<Ruleset, CliError> {
+        match self {
+            Side::Dir(dir) => Ok(rules::load_dir(dir)?),
+            Side::Revision(rev) => {
+                let repo = std::env::current_dir()?;
+                match rules::load_at_revision(&repo, rev, rules_dir) {
+                    Ok(ruleset) => {
+                        if Path::new(rev).is_dir() {
+                            // Said aloud: in CI this is a change trying to stand in for
+                            // the base.
+                            eprintln!(
+                                "lexdelta: note: {option} {rev:?} reads the git revision; the \
+                                 directory {rev:?} in the working tree is not read (pass \
+                                 {option}-dir to compare a directory)"
+                            );
+                        }
+                        Ok(ruleset)
+                    }
+                    // Not a revision, but a directory of that name: say which option reads
+                    // directories, never read it in the revision's place.
+                    Err(err @ rules::RulesError::Git(_)) if Path::new(rev).is_dir() => {
+                        Err(CliError(
+                            format!(
+                                "{option} {rev:?}: {err}; {option} takes a git revision only. \
+                                 To compare the directory {rev:?}, pass {option}-dir {rev:?}"
+                            ),
+                            false,
+                        ))
+                    }
+                    Err(err) => Err(err.into()),
+                }
+            }
+        }
+    }
 }
 
 pub fn run(args: Args) -> Result<ExitCode, CliError> {
+    // Every output path is checked before anything is computed or written: a bad last
+    // path never leaves the first written.
+    let outputs: Vec<&Path> = [&args.markdown, &args.html, &args.sarif]
+        .into_iter()
+        .flatten()
+        .map(PathBuf::as_path)
+        .collect();
+    check_outputs(&outputs, true)?;
     let demo = args.sample.demo;
-    let base_spec = args.base.clone().unwrap_or_else(|| DEMO_BASE.into());
-    let head_spec = args.head.clone().unwrap_or_else(|| {
-        if demo && args.base.is_none() {
+    let base_side = Side::pick(args.base.as_ref(), args.base_dir.as_ref())
+        .unwrap_or_else(|| Side::Dir(DEMO_BASE.into()));
+    let head_side = Side::pick(args.head.as_ref(), args.head_dir.as_ref()).unwrap_or_else(|| {
+        let no_base = args.base.is_none() && args.base_dir.is_none();
+        Side::Dir(if demo && no_base {
             DEMO_HEAD.into()
         } else {
-            args.rules.clone()
-        }
+            args.rules.clone().into()
+        })
     });
-    let base = Arc::new(Analyzer::new(load_side(&base_spec, &args.rules)?)?);
-    let head = Arc::new(Analyzer::new(load_side(&head_spec, &args.rules)?)?);
+    let base = Arc::new(Analyzer::new(base_side.load("--base", &args.rules)?)?);
+    let head = Arc::new(Analyzer::new(head_side.load("--head", &args.rules)?)?);
     let loaded = args.sample.load(args.docs, false)?;
     let corpus = loaded.read_corpus()?;
     let limits = args.gate.0.clone();
@@ -161,7 +227,11 @@ pub fn run(args: Args) -> Result<ExitCode, CliError> {
         Ok(ExitCode::SUCCESS)
     } else {
         for b in &report.gate.breaches {
-            eprintln!("gate: {}: {}", b.limit, b.reason);
+            eprintln!(
+                "gate: {}: {}",
+                b.limit,
+                lexdelta::report::style::clean_line(&b.reason)
+            );
         }
         Ok(ExitCode::from(1))
     }

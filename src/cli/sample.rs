@@ -174,6 +174,9 @@ impl Progress for Bar {
     fn finish(&self) {
         self.0.finish_and_clear();
     }
+    fn notice(&self, message: &str) {
+        self.0.suspend(|| eprintln!("lexdelta: {message}"));
+    }
 }
 
 pub fn bar() -> Bar {

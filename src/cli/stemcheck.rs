@@ -75,6 +75,7 @@ fn corpus_groups(
     analyzer: &Analyzer,
 ) -> Result<ConceptGroups, CliError> {
     // The corpus is streamed and only its forms counted, as `collisions` reads it.
+    let shown = corpus.display();
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
     let options = args.input.doc_options(None, 0)?;
     let counts = DocumentCounts::from_file(analyzer.surface(), corpus, &options, threads)
@@ -84,5 +85,17 @@ fn corpus_groups(
     let vocabulary = Vocabulary::from_counts(analyzer.surface(), counts, None);
     let (groups, _skipped) =
         wordnet_groups(vocabulary.forms.iter().map(|f| f.form.as_str()), &morphy);
+    if groups.groups.is_empty() {
+        // Indices over no group are all zero: a figure that measured nothing.
+        return Err(CliError(
+            format!(
+                "{shown}: none of its {} words has a base form in WordNet, so there is no \
+                 concept group to measure; use a corpus in English, or concept groups with \
+                 --groups FILE",
+                vocabulary.forms.len()
+            ),
+            false,
+        ));
+    }
     Ok(groups)
 }

@@ -26,7 +26,10 @@ mod reader;
 mod sidecar;
 
 pub use build::{build_key_index, build_surface_index};
-pub use cache::{CacheStatus, FORMAT_VERSION, open_or_build};
+pub use cache::{
+    CacheStatus, FORMAT_VERSION, Opened, Verify, default_verify, open_or_build,
+    open_or_build_checked, set_default_verify,
+};
 pub use forms::SurfaceForms;
 pub use reader::{Frequencies, IndexPostings, Postings, ReadCache};
 
@@ -61,6 +64,9 @@ pub trait Progress {
     fn begin(&self, total: u64, what: &str);
     fn advance(&self, n: u64);
     fn finish(&self);
+    /// Something the user should hear about that does not stop the run (a damaged cache
+    /// rebuilt). Ignored unless the implementation shows it.
+    fn notice(&self, _message: &str) {}
 }
 
 /// Reports nothing.

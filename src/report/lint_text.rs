@@ -4,7 +4,7 @@
 use std::collections::HashMap;
 use std::fmt::Write as _;
 
-use super::style::Style;
+use super::style::{Style, clean_line};
 use crate::lint::{CheckInfo, Finding, FormCount, LintReport, checks};
 use crate::rules::SourceFile;
 use crate::severity::Severity;
@@ -18,6 +18,8 @@ pub fn render(report: &LintReport, sources: &[SourceFile], style: Style) -> Stri
         .iter()
         .map(|s| (s.name.as_str(), s.text.as_str()))
         .collect();
+    // Each file's lines, split once (a finding's line is then a look-up, not a scan).
+    let mut lines: HashMap<&str, Vec<&str>> = HashMap::new();
     let mut out = String::new();
     let mut current: Option<&str> = None;
     for finding in &report.findings {
@@ -40,7 +42,13 @@ pub fn render(report: &LintReport, sources: &[SourceFile], style: Style) -> Stri
             current = Some(file);
         }
         out.push('\n');
-        finding_block(&mut out, finding, texts.get(file).copied(), style);
+        let line = texts.get(file).and_then(|text| {
+            let of_file = lines.entry(file).or_insert_with(|| text.lines().collect());
+            of_file
+                .get(finding.origin.line.saturating_sub(1) as usize)
+                .copied()
+        });
+        finding_block(&mut out, finding, line, style);
     }
     if !report.findings.is_empty() {
         out.push('\n');
@@ -49,17 +57,16 @@ pub fn render(report: &LintReport, sources: &[SourceFile], style: Style) -> Stri
     out
 }
 
-fn finding_block(out: &mut String, f: &Finding, text: Option<&str>, style: Style) {
+fn finding_block(out: &mut String, f: &Finding, line: Option<&str>, style: Style) {
     let severity = paint_severity(f.severity, style);
     let _ = writeln!(
         out,
         "{}: {}{}: {}",
-        f.location(),
+        clean_line(&f.location()),
         severity,
         style.dim(&format!("[{}]", f.check)),
-        style.bold(&f.message)
+        style.bold(&clean_line(&f.message))
     );
-    let line = text.and_then(|t| t.lines().nth(f.origin.line.saturating_sub(1) as usize));
     if let Some(line) = line {
         source_excerpt(out, f.origin.line, f.origin.column, line, style);
     }
@@ -75,19 +82,36 @@ fn finding_block(out: &mut String, f: &Finding, text: Option<&str>, style: Style
             out,
             "  {} {}:{}:{}: {}",
             style.dim("related:"),
-            r.origin.file,
+            clean_line(&r.origin.file),
             r.origin.line,
             r.origin.column,
-            r.note
+            clean_line(&r.note)
         );
     }
     if let Some(help) = &f.help {
-        let _ = writeln!(out, "  {} {help}", style.cyan("help:"));
+        let _ = writeln!(out, "  {} {}", style.cyan("help:"), clean_line(help));
     }
 }
 
+/// Source lines longer than this are quoted as a window around the column.
+const MAX_QUOTED: usize = 100;
+
 /// The line with its number, and a caret under the term the column points at.
 fn source_excerpt(out: &mut String, number: u32, column: u32, line: &str, style: Style) {
+    // A long line (a set of 100k members on one line) is quoted as a window around the
+    // column, once per finding, not whole.
+    let count = line.chars().count();
+    let windowed;
+    let (line, column) = if count > MAX_QUOTED {
+        let col = (column.saturating_sub(1) as usize).min(count);
+        let start = col.saturating_sub(MAX_QUOTED / 2);
+        let window: String = line.chars().skip(start).take(MAX_QUOTED).collect();
+        windowed = format!("…{window}…");
+        (windowed.as_str(), (col - start + 2) as u32)
+    } else {
+        (line, column)
+    };
+    let line = &*clean_line(line);
     let number = number.to_string();
     let pad = " ".repeat(number.len());
     let before: String = line

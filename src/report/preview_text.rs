@@ -3,7 +3,7 @@
 
 use std::fmt::Write as _;
 
-use super::style::{Style, pad};
+use super::style::{Style, clean_line, pad};
 use crate::preview::{Cause, Label, PreviewReport, QueryChange, RuleChange, listed};
 
 /// How many queries and documents the text shows.
@@ -72,7 +72,7 @@ fn query(out: &mut String, q: &QueryChange, style: Style, limits: Limits) {
     let _ = writeln!(
         out,
         "  {}  [{label}{mixed}{judged}]  {} searches  matches {} -> {}  (+{} -{})  RBO {:.3}",
-        style.bold(&q.query),
+        style.bold(&clean_line(&q.query)),
         thousands(q.searches),
         q.matches_before,
         q.matches_after,
@@ -90,7 +90,7 @@ fn query(out: &mut String, q: &QueryChange, style: Style, limits: Limits) {
         let shown: Vec<String> = docs
             .iter()
             .take(limits.docs)
-            .map(|d| format!("{} {}", d.id, d.title))
+            .map(|d| format!("{} {}", clean_line(&d.id), clean_line(&d.title)))
             .collect();
         let more = count.saturating_sub(shown.len());
         let more = if more > 0 {
@@ -101,11 +101,11 @@ fn query(out: &mut String, q: &QueryChange, style: Style, limits: Limits) {
         let _ = writeln!(out, "      {name}: {}{more}", shown.join("; "));
     }
     if q.label == Label::Reordered && !q.top_after.is_empty() {
-        let ids: Vec<&str> = q
+        let ids: Vec<_> = q
             .top_after
             .iter()
             .take(limits.docs)
-            .map(|d| d.id.as_str())
+            .map(|d| clean_line(&d.id))
             .collect();
         let _ = writeln!(out, "      top now: {}", ids.join(" "));
     }
@@ -270,7 +270,10 @@ pub fn render(report: &PreviewReport, style: Style, limits: Limits) -> String {
                     let _ = writeln!(
                         out,
                         "    {} {:<28} {:.4} -> {:.4}",
-                        q.qid, q.query, q.before[ndcg], q.after[ndcg]
+                        clean_line(&q.qid),
+                        clean_line(&q.query),
+                        q.before[ndcg],
+                        q.after[ndcg]
                     );
                 }
             }

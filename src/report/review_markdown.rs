@@ -42,8 +42,43 @@ pub fn escape(text: &str) -> String {
     out
 }
 
+/// `text` as an inline code span, whatever it holds: the fence is longer than any run of
+/// backticks inside (a path or id holding a backtick cannot end the span early), line
+/// breaks become spaces. Backslash escapes do not work inside code spans, so nothing else
+/// is changed.
+pub fn code(text: &str) -> String {
+    let text: String = text
+        .chars()
+        .map(|c| if c == '\n' || c == '\r' { ' ' } else { c })
+        .collect();
+    let mut longest = 0;
+    let mut run = 0;
+    for c in text.chars() {
+        run = if c == '`' { run + 1 } else { 0 };
+        longest = longest.max(run);
+    }
+    let fence = "`".repeat(longest + 1);
+    let pad = if text.starts_with('`') || text.ends_with('`') {
+        " "
+    } else {
+        ""
+    };
+    format!("{fence}{pad}{text}{pad}{fence}")
+}
+
+/// [`code`] in a table cell: a `|` would end the cell even inside a code span, and the
+/// table reads `\|` as a `|` of the cell's text.
+fn code_cell(text: &str) -> String {
+    code(text).replace('|', "\\|")
+}
+
 fn verdict(out: &mut String, r: &ReviewReport) {
-    let _ = writeln!(out, "## lexdelta review: `{}` → `{}`\n", r.base, r.head);
+    let _ = writeln!(
+        out,
+        "## lexdelta review: {} → {}\n",
+        code(&r.base),
+        code(&r.head)
+    );
     if r.gate.limits.is_empty() && r.gate.passed() {
         out.push_str("**No gate limits are set** (add a `gate:` section to the base ruleset).\n\n");
     } else if r.gate.passed() {
@@ -126,8 +161,8 @@ fn query_line(q: &QueryChange) -> String {
         .causes
         .iter()
         .map(|c| match &c.origin {
-            Some(o) => format!("`{}` ({o})", escape(&c.rule)),
-            None => format!("`{}`", escape(&c.rule)),
+            Some(o) => format!("{} ({})", code_cell(&c.rule), escape(&o.to_string())),
+            None => code_cell(&c.rule),
         })
         .collect();
     let outcome = match &q.judged {
@@ -201,7 +236,7 @@ fn affected(out: &mut String, r: &ReviewReport, limits: Limits) {
         let _ = writeln!(out, "- **{}**", escape(&q.query));
         for (sign, docs) in [("+", &q.gained), ("−", &q.lost)] {
             for d in docs.iter().take(limits.docs) {
-                let _ = writeln!(out, "  - {sign} `{}` {}", escape(&d.id), escape(&d.title));
+                let _ = writeln!(out, "  - {sign} {} {}", code(&d.id), escape(&d.title));
             }
         }
     }
@@ -247,10 +282,11 @@ fn rule_changes(out: &mut String, r: &ReviewReport) {
         };
         let _ = writeln!(
             out,
-            "- {} {} `{}` ({at}): {what}",
+            "- {} {} {} ({}): {what}",
             change_name(&c.change),
             c.section,
-            escape(&c.label)
+            code(&c.label),
+            escape(&at)
         );
     }
     if r.diff.rules.len() > 200 {
@@ -263,8 +299,8 @@ fn rule_changes(out: &mut String, r: &ReviewReport) {
     for f in &r.diff.files {
         let _ = writeln!(
             out,
-            "- file `{}` {}: revision {} → {}",
-            escape(&f.name),
+            "- file {} {}: revision {} → {}",
+            code(&f.name),
             change_name(&f.change),
             f.base_revision.map_or("—".into(), |v| v.to_string()),
             f.head_revision.map_or("—".into(), |v| v.to_string())
@@ -299,9 +335,25 @@ fn lint(out: &mut String, r: &ReviewReport) {
             "- **{}** `{}` {}: {}",
             f.severity,
             f.check,
-            f.location(),
+            escape(&f.location()),
             escape(&f.message)
         );
     }
     out.push_str("\n</details>\n");
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn paths_stay_inside_their_code_spans() {
+        assert_eq!(code("rules/a_b.yaml"), "`rules/a_b.yaml`");
+        // A backtick in a path cannot close the span: the fence is longer.
+        assert_eq!(code("evil`](x).yaml"), "``evil`](x).yaml``");
+        assert_eq!(code("`x`"), "`` `x` ``");
+        assert_eq!(code("a\nb"), "`a b`");
+        assert_eq!(code_cell("a|b"), "`a\\|b`");
+        assert_eq!(escape("a_b [x](y)"), "a\\_b \\[x\\](y)");
+    }
 }

@@ -4,7 +4,7 @@
 use std::fmt::Write as _;
 
 use super::preview_text::{self, Limits};
-use super::style::Style;
+use super::style::{Style, clean_line};
 use crate::review::ReviewReport;
 
 pub fn render(report: &ReviewReport, style: Style, limits: Limits) -> String {
@@ -13,8 +13,8 @@ pub fn render(report: &ReviewReport, style: Style, limits: Limits) -> String {
         out,
         "{} {} -> {}",
         style.bold("review"),
-        report.base,
-        report.head
+        clean_line(&report.base),
+        clean_line(&report.head)
     );
     if report.gate.limits.is_empty() && report.gate.passed() {
         let _ = writeln!(
@@ -38,7 +38,7 @@ pub fn render(report: &ReviewReport, style: Style, limits: Limits) -> String {
             ))
         );
         for b in &report.gate.breaches {
-            let _ = writeln!(out, "    {} {}", style.red(b.limit), b.reason);
+            let _ = writeln!(out, "    {} {}", style.red(b.limit), clean_line(&b.reason));
         }
     }
     if report.gate_changed {

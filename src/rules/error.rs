@@ -150,7 +150,8 @@ fn render_all(diagnostics: &[Diagnostic]) -> String {
         "\n\n{n} problem{} in the rule files; nothing was run.",
         if n == 1 { "" } else { "s" }
     ));
-    out
+    // Source lines and file names come from the files: shown, never sent to the terminal.
+    crate::report::style::clean(&out).into_owned()
 }
 
 #[cfg(test)]

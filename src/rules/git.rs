@@ -5,7 +5,7 @@ use std::path::Path;
 use std::process::Command;
 
 use super::error::RulesError;
-use super::load::{SourceFile, file_too_large, load_sources};
+use super::load::{SourceFile, file_too_large, load_sources, not_utf8};
 use super::yaml::MAX_FILE_BYTES;
 use super::{Diagnostic, Ruleset};
 
@@ -69,6 +69,18 @@ pub fn load_at_revision(repo: &Path, rev: &str, dir: &str) -> Result<Ruleset, Ru
             continue;
         }
         let name = format!("{rev}:{path}");
+        if fields.first() == Some(&"120000") {
+            // A symbolic link: git stores its target's name, not a rule file.
+            too_large.push(
+                Diagnostic::new(
+                    &name,
+                    None,
+                    "a symbolic link; rule files in git must be regular files",
+                )
+                .help("commit the rule file itself in the ruleset directory"),
+            );
+            continue;
+        }
         let size: u64 = fields.get(3).and_then(|s| s.parse().ok()).unwrap_or(0);
         if size > MAX_FILE_BYTES {
             too_large.push(file_too_large(&name, size));
@@ -77,7 +89,7 @@ pub fn load_at_revision(repo: &Path, rev: &str, dir: &str) -> Result<Ruleset, Ru
         let bytes = git(repo, &["cat-file", "blob", fields[2]])?;
         match String::from_utf8(bytes) {
             Ok(text) => sources.push(SourceFile { name, text }),
-            Err(_) => too_large.push(Diagnostic::new(&name, None, "the file is not UTF-8 text")),
+            Err(err) => too_large.push(not_utf8(&name, err.as_bytes(), err.utf8_error())),
         }
     }
     if !too_large.is_empty() {

@@ -40,16 +40,65 @@ pub fn read_sources(dir: &Path) -> Result<Vec<SourceFile>, RulesError> {
             )))
         };
     }
+    // Symbolic links are followed only to files inside the ruleset directory: a link to a
+    // file elsewhere would be read, and its lines quoted in diagnostics, in CI logs.
+    let root = fs::canonicalize(dir).map_err(io)?;
     let mut paths = Vec::new();
+    let mut refused = Vec::new();
     for entry in fs::read_dir(dir).map_err(io)? {
-        let path = entry.map_err(io)?.path();
+        let entry = entry.map_err(io)?;
+        let path = entry.path();
         let is_yaml = matches!(
             path.extension().and_then(|e| e.to_str()),
             Some("yaml" | "yml")
         );
-        if is_yaml && path.is_file() {
-            paths.push(path);
+        if !is_yaml {
+            continue;
         }
+        let name = path.display().to_string();
+        let kind = entry.file_type().map_err(|source| RulesError::Io {
+            path: path.clone(),
+            source,
+        })?;
+        if kind.is_dir() {
+            continue;
+        }
+        if kind.is_symlink() {
+            match fs::canonicalize(&path) {
+                Err(_) => refused.push(
+                    Diagnostic::new(
+                        &name,
+                        None,
+                        "a symbolic link that leads nowhere (its target is missing, or the \
+                         links form a loop)",
+                    )
+                    .help("point the link at a rule file in this directory, or remove it"),
+                ),
+                Ok(target) if !target.starts_with(&root) => refused.push(
+                    Diagnostic::new(
+                        &name,
+                        None,
+                        "a symbolic link to a file outside the ruleset directory; \
+                         lexdelta does not follow it",
+                    )
+                    .help("copy the rule file into the ruleset directory, or remove the link"),
+                ),
+                Ok(target) if target.is_dir() => {}
+                Ok(target) if target.is_file() => paths.push(path),
+                Ok(_) => refused.push(not_regular(&name)),
+            }
+            continue;
+        }
+        if kind.is_file() {
+            paths.push(path);
+        } else {
+            // A FIFO, socket or device: reading it could block or never end.
+            refused.push(not_regular(&name));
+        }
+    }
+    if !refused.is_empty() {
+        refused.sort_by(|a, b| a.file.cmp(&b.file));
+        return Err(RulesError::Invalid(refused));
     }
     paths.sort();
     let mut sources = Vec::with_capacity(paths.len());
@@ -72,23 +121,43 @@ pub fn read_sources(dir: &Path) -> Result<Vec<SourceFile>, RulesError> {
         })?;
         match String::from_utf8(bytes) {
             Ok(text) => sources.push(SourceFile { name, text }),
-            Err(err) => too_large.push(
-                Diagnostic::new(
-                    &name,
-                    None,
-                    format!(
-                        "the file is not UTF-8 text (invalid byte at offset {})",
-                        err.utf8_error().valid_up_to()
-                    ),
-                )
-                .help("save the rule file as UTF-8"),
-            ),
+            Err(err) => too_large.push(not_utf8(&name, err.as_bytes(), err.utf8_error())),
         }
     }
     if !too_large.is_empty() {
         return Err(RulesError::Invalid(too_large));
     }
     Ok(sources)
+}
+
+fn not_regular(name: &str) -> Diagnostic {
+    Diagnostic::new(
+        name,
+        None,
+        "not a regular file (a FIFO, socket or device named like a rule file)",
+    )
+    .help("rule files are regular files; remove this one from the ruleset directory")
+}
+
+/// A file that is not UTF-8, located by line and column (of the valid text before the
+/// first invalid byte).
+pub(super) fn not_utf8(name: &str, bytes: &[u8], err: std::str::Utf8Error) -> Diagnostic {
+    let valid = std::str::from_utf8(&bytes[..err.valid_up_to()]).unwrap_or_default();
+    let line = valid.matches('\n').count() + 1;
+    let last = valid.rsplit('\n').next().unwrap_or_default();
+    let at = super::Position {
+        line: u32::try_from(line).unwrap_or(u32::MAX),
+        column: u32::try_from(last.chars().count() + 1).unwrap_or(u32::MAX),
+    };
+    Diagnostic::new(
+        name,
+        Some(at),
+        format!(
+            "the file is not UTF-8 text: byte 0x{:02x} here is not valid UTF-8",
+            bytes[err.valid_up_to()]
+        ),
+    )
+    .help("save the rule file as UTF-8 (a file in another encoding, or not a text file at all)")
 }
 
 pub(super) fn file_too_large(name: &str, size: u64) -> Diagnostic {
@@ -121,18 +190,26 @@ pub fn load_sources(source: &str, files: Vec<SourceFile>) -> Result<Ruleset, Rul
             diagnostics.push(file_too_large(&file.name, file.text.len() as u64));
             continue;
         }
+        // A file that does not even declare a format may be anything (a file named like a
+        // rule file by mistake): its problems are located, never quoted.
+        let quotable = looks_like_rule_file(&file.text);
+        let quoted = |d: Diagnostic| {
+            if quotable {
+                d.with_source(&file.text)
+            } else {
+                d
+            }
+        };
         let root = match yaml::parse(&file.text) {
             Ok(root) => root,
             Err(err) => {
-                diagnostics.push(
-                    Diagnostic::new(&file.name, err.at, err.message)
-                        .help(err.help)
-                        .with_source(&file.text),
-                );
+                diagnostics.push(quoted(
+                    Diagnostic::new(&file.name, err.at, err.message).help(err.help),
+                ));
                 continue;
             }
         };
-        let mut walker = Walker::new(Arc::clone(&name), &file.text);
+        let mut walker = Walker::new(Arc::clone(&name), if quotable { &file.text } else { "" });
         let rules = walker.file(&root);
         diagnostics.append(&mut walker.diagnostics);
         if let Some((revision, revision_origin)) = rules.revision.clone() {
@@ -153,6 +230,11 @@ pub fn load_sources(source: &str, files: Vec<SourceFile>) -> Result<Ruleset, Rul
     } else {
         Err(RulesError::Invalid(diagnostics))
     }
+}
+
+/// Whether a text declares itself a rule file: some line starts with `format:`.
+fn looks_like_rule_file(text: &str) -> bool {
+    text.lines().any(|line| line.starts_with("format:"))
 }
 
 /// Sections that only one file of a ruleset may hold.
@@ -228,7 +310,7 @@ fn once(
 fn source_text<'a>(files: &'a [SourceFile], name: &str) -> &'a str {
     files
         .iter()
-        .find(|f| f.name == name)
+        .find(|f| f.name == name && looks_like_rule_file(&f.text))
         .map_or("", |f| f.text.as_str())
 }
 

@@ -400,6 +400,21 @@ impl<'a> Walker<'a> {
         if let Some(n) = get(entries, "token_pattern") {
             pipeline.token_pattern = self.term(n, "`token_pattern`").and_then(|source| {
                 let regex = self.regex(n, &source.text, false)?;
+                if let Some(problem) = finds_no_token(&source.text) {
+                    self.error(
+                        n.at,
+                        format!(
+                            "`token_pattern` {} {problem}, so every text would have no tokens",
+                            quoted_pattern(&source.text)
+                        ),
+                        Some(
+                            "write a pattern that matches the words themselves, for example \
+                             `[\\w'-]+`; remove `token_pattern` to split on word boundaries"
+                                .into(),
+                        ),
+                    );
+                    return None;
+                }
                 Some(TokenPattern { source, regex })
             });
         }
@@ -440,10 +455,28 @@ impl<'a> Walker<'a> {
         match regex::RegexBuilder::new(&full).size_limit(1 << 20).build() {
             Ok(re) => Some(re),
             Err(err) => {
-                let detail = err.to_string();
+                // The regex crate's message quotes the whole pattern: fine for a line,
+                // not for a long one (it would be echoed whole into a CI log).
+                let detail = if source.len() <= MAX_QUOTED_PATTERN {
+                    err.to_string()
+                } else {
+                    match regex_syntax::Parser::new().parse(source) {
+                        Err(regex_syntax::Error::Parse(e)) => format!(
+                            "{} (at character {} of the pattern)",
+                            e.kind(),
+                            source[..e.span().start.offset].chars().count() + 1
+                        ),
+                        Err(regex_syntax::Error::Translate(e)) => format!(
+                            "{} (at character {} of the pattern)",
+                            e.kind(),
+                            source[..e.span().start.offset].chars().count() + 1
+                        ),
+                        _ => shorten(&err.to_string(), MAX_QUOTED_PATTERN),
+                    }
+                };
                 self.error(
                     node.at,
-                    format!("invalid regular expression {source:?}"),
+                    format!("invalid regular expression {}", quoted_pattern(source)),
                     Some(format!(
                         "the regex crate says:\n{}",
                         indent(detail.trim_end(), "        ")
@@ -826,6 +859,40 @@ fn scalar_text(node: &Node) -> String {
         Value::Str(s) => format!("{s:?}"),
         Value::Seq(_) => "a list".into(),
         Value::Map(_) => "a mapping".into(),
+    }
+}
+
+/// Patterns longer than this (in bytes) are quoted shortened in diagnostics.
+const MAX_QUOTED_PATTERN: usize = 200;
+
+/// A pattern as a diagnostic quotes it: whole when short, else its start and its length.
+fn quoted_pattern(source: &str) -> String {
+    if source.len() <= MAX_QUOTED_PATTERN {
+        format!("{source:?}")
+    } else {
+        format!("{:?}… ({} bytes in all)", shorten(source, 60), source.len())
+    }
+}
+
+/// The first `max` bytes of `text` (cut at a character boundary).
+fn shorten(text: &str, max: usize) -> String {
+    let mut end = max.min(text.len());
+    while !text.is_char_boundary(end) {
+        end -= 1;
+    }
+    text[..end].to_string()
+}
+
+/// Why a token pattern can find no token, if it cannot: empty matches are no tokens, so a
+/// pattern that only ever matches empty text (`\b`, `^`, `x{0}`) or never matches at all
+/// (`[^\s\S]`) tokenizes every text to nothing.
+fn finds_no_token(source: &str) -> Option<&'static str> {
+    let hir = regex_syntax::Parser::new().parse(source).ok()?;
+    let props = hir.properties();
+    match (props.minimum_len(), props.maximum_len()) {
+        (None, _) => Some("can never match"),
+        (_, Some(0)) => Some("matches only empty text"),
+        _ => None,
     }
 }
 

@@ -18,8 +18,20 @@ use serde_saphyr::Spanned;
 /// Files larger than this are refused before they are read.
 pub const MAX_FILE_BYTES: u64 = 16 * 1024 * 1024;
 
-/// At most this many nodes are built for one file, aliases included.
+/// At most this many nodes are replayed through aliases in one file (and at least this
+/// many nodes are allowed in all; a file without aliases may hold as many as its size
+/// allows, see [`node_budget`]).
 pub const MAX_TREE_NODES: usize = 400_000;
+
+/// Values may nest at most this deep (a rule file needs five levels).
+pub const MAX_DEPTH: usize = 32;
+
+/// The nodes built for a file of `len` bytes: every node written needs at least two bytes
+/// (`a,`), so a file without aliases never reaches this; aliases may add
+/// [`MAX_TREE_NODES`] more.
+fn node_budget(len: usize) -> usize {
+    MAX_TREE_NODES + len / 2 + 1
+}
 
 /// A line and column, both counted from 1.
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, PartialOrd, Ord, Hash)]
@@ -76,6 +88,8 @@ thread_local! {
 
 /// Parses one YAML document into a spanned tree, within the budgets above.
 pub fn parse(text: &str) -> Result<Node, SyntaxError> {
+    let shape = prescan(text)?;
+    let budget = node_budget(text.len());
     // YAML 1.2 core booleans only: a stopword list holding `on` or `no` means the words.
     let options = serde_saphyr::options! {
         strict_booleans: true,
@@ -83,14 +97,14 @@ pub fn parse(text: &str) -> Result<Node, SyntaxError> {
             max_total_replayed_events: MAX_TREE_NODES,
         },
         budget: serde_saphyr::budget! {
-            max_nodes: MAX_TREE_NODES,
+            max_nodes: budget,
             max_aliases: 10_000,
-            max_depth: 32,
+            max_depth: MAX_DEPTH,
             max_documents: 1,
             max_recorded_anchor_events: MAX_TREE_NODES,
         },
     };
-    NODES_LEFT.with(|left| left.set(MAX_TREE_NODES));
+    NODES_LEFT.with(|left| left.set(budget));
     let parsed: Result<Option<Spanned<Value>>, _> =
         serde_saphyr::from_str_with_options(text, options);
     NODES_LEFT.with(|left| left.set(usize::MAX));
@@ -100,11 +114,131 @@ pub fn parse(text: &str) -> Result<Node, SyntaxError> {
             at: Position { line: 1, column: 1 },
             value: Value::Null,
         }),
-        Err(err) => Err(syntax_error(&err)),
+        Err(err) => Err(syntax_error(&err, &shape)),
     }
 }
 
-fn syntax_error(err: &serde_saphyr::Error) -> SyntaxError {
+/// What the pre-scan learnt of a file that the parser's own errors do not say.
+#[derive(Debug, Default)]
+struct Shape {
+    /// The first alias (`*name`), if any.
+    first_alias: Option<Position>,
+}
+
+fn marker_position(m: &granit_parser::Marker) -> Position {
+    Position {
+        line: u32::try_from(m.line()).unwrap_or(u32::MAX).max(1),
+        column: u32::try_from(m.col() + 1).unwrap_or(u32::MAX),
+    }
+}
+
+/// One open collection in the pre-scan: for a mapping, its keys so far and whether the
+/// next node is a key.
+struct Frame {
+    keys: Option<std::collections::HashMap<String, Position>>,
+    next_is_key: bool,
+}
+
+/// Walks the file's parse events once, before the tree is built, for what must be refused
+/// with a precise place: YAML tags (`!!binary` would decode into text the file does not
+/// show), a second document, nesting deeper than [`MAX_DEPTH`], and a key written twice in
+/// one mapping. Syntax errors are left to the parser proper, which reports them.
+fn prescan(text: &str) -> Result<Shape, SyntaxError> {
+    use granit_parser::{Event, Parser};
+    let mut shape = Shape::default();
+    let mut frames: Vec<Frame> = Vec::new();
+    let mut documents = 0;
+    for event in Parser::new_from_str(text) {
+        let Ok((event, span)) = event else {
+            break;
+        };
+        let at = marker_position(&span.start);
+        // A node event (scalar, collection start or alias) in a mapping's key place.
+        let node = |frames: &mut Vec<Frame>, key: Option<&str>| -> Result<(), SyntaxError> {
+            let Some(frame) = frames.last_mut() else {
+                return Ok(());
+            };
+            let Some(keys) = &mut frame.keys else {
+                return Ok(());
+            };
+            let is_key = frame.next_is_key;
+            frame.next_is_key = !is_key;
+            if let (true, Some(key)) = (is_key, key) {
+                if let Some(first) = keys.get(key) {
+                    return Err(SyntaxError {
+                        at: Some(at),
+                        message: format!(
+                            "the key {key:?} is written twice in one mapping (first at line {}, column {})",
+                            first.line, first.column
+                        ),
+                        help: "keep one of the two entries; a mapping holds each key once",
+                    });
+                }
+                keys.insert(key.to_string(), at);
+            }
+            Ok(())
+        };
+        let tag = match &event {
+            Event::Scalar(_, _, _, tag)
+            | Event::SequenceStart(_, _, tag)
+            | Event::MappingStart(_, _, tag) => tag.as_ref(),
+            _ => None,
+        };
+        if let Some(tag) = tag {
+            let written = format!("{}{}", tag.original_handle(), tag.suffix());
+            let tag_at = span.tag_start.as_ref().map_or(at, marker_position);
+            return Err(SyntaxError {
+                at: Some(tag_at),
+                message: format!(
+                    "a YAML tag `{written}`; rule files take plain values, without tags"
+                ),
+                help: "remove the tag and write the value as plain text (a tag such as `!!binary` \
+                       would turn the value into something the file does not show)",
+            });
+        }
+        match event {
+            Event::DocumentStart(..) => {
+                documents += 1;
+                if documents > 1 {
+                    return Err(SyntaxError {
+                        at: Some(at),
+                        message: "a second YAML document in one file (after a `---` line); \
+                                  a rule file holds one document"
+                            .into(),
+                        help: "move the second document into a file of its own, or remove the `---` line",
+                    });
+                }
+            }
+            Event::Scalar(value, ..) => node(&mut frames, Some(value.as_ref()))?,
+            Event::Alias(_) => {
+                shape.first_alias.get_or_insert(at);
+                node(&mut frames, None)?;
+            }
+            Event::SequenceStart(..) | Event::MappingStart(..) => {
+                node(&mut frames, None)?;
+                if frames.len() >= MAX_DEPTH {
+                    return Err(SyntaxError {
+                        at: Some(at),
+                        message: format!("values nested more than {MAX_DEPTH} levels deep"),
+                        help: "a rule file needs a few levels at most; check the indentation or the brackets here",
+                    });
+                }
+                let is_map = matches!(event, Event::MappingStart(..));
+                frames.push(Frame {
+                    keys: is_map.then(Default::default),
+                    next_is_key: true,
+                });
+            }
+            Event::SequenceEnd | Event::MappingEnd => {
+                frames.pop();
+            }
+            _ => {}
+        }
+    }
+    Ok(shape)
+}
+
+fn syntax_error(err: &serde_saphyr::Error, shape: &Shape) -> SyntaxError {
     let at = err.location().and_then(|loc| position_of(&loc));
     let rendered = err.without_snippet().to_string();
     // The parser's message may carry its own "line N column M" prefix; keep the first line,
@@ -120,14 +254,49 @@ fn syntax_error(err: &serde_saphyr::Error) -> SyntaxError {
         _ => message,
     }
     .to_string();
-    if message.contains("budget breached") || message.contains("alias replay") {
-        return SyntaxError {
-            at,
-            message: format!(
-                "the document expands beyond the limits for a rule file \
-                 ({MAX_TREE_NODES} nodes, 10000 aliases, depth 32)"
-            ),
-            help: "rule files need no YAML anchors or aliases (`&name`, `*name`); remove them or split the file",
+    // The parser's own words name its settings ("configured policy", "DuplicateKeyPolicy"),
+    // which a rule file's author cannot reach: say what the file holds instead.
+    let plain = |message: &str, help: &'static str| SyntaxError {
+        at,
+        message: message.to_string(),
+        help,
+    };
+    if message.contains("non-finite float") {
+        return plain(
+            "a number that is not finite (infinite, not a number, or too large)",
+            "write an ordinary number",
+        );
+    }
+    if message.contains("merge keys") {
+        return plain(
+            "a YAML merge key (`<<`); rule files take plain mappings",
+            "write the entries out instead of merging them in",
+        );
+    }
+    if message.contains("duplicate mapping key") {
+        return plain(
+            "a key written twice in one mapping",
+            "keep one of the two entries; a mapping holds each key once",
+        );
+    }
+    let over_budget = message.contains("budget breached")
+        || message.contains("alias replay")
+        || message.contains("expands to more than");
+    if over_budget {
+        return match shape.first_alias {
+            Some(alias) => SyntaxError {
+                at: Some(alias),
+                message: format!(
+                    "the aliases in this file (the first is here) repeat more than \
+                     {MAX_TREE_NODES} values, or more than 10000 aliases are used"
+                ),
+                help: "rule files need no YAML anchors or aliases (`&name`, `*name`); write the values out",
+            },
+            None => SyntaxError {
+                at,
+                message: "the file holds more values than a rule file may".into(),
+                help: "split it into several files",
+            },
         };
     }
     SyntaxError {
@@ -158,10 +327,9 @@ fn take_node_budget<E: de::Error>() -> Result<(), E> {
     NODES_LEFT.with(|left| {
         let n = left.get();
         if n == 0 {
-            Err(E::custom(format!(
-                "the document expands to more than {MAX_TREE_NODES} nodes (through aliases or sheer size); \
-                 rule files this large are refused"
-            )))
+            Err(E::custom(
+                "the document expands to more than its node budget",
+            ))
         } else {
             left.set(n - 1);
             Ok(())

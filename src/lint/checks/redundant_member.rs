@@ -1,5 +1,9 @@
 //! `redundant-member`: terms of one synonym rule that normalize to the same keys.
 
+use std::collections::hash_map::Entry;
+
+use rustc_hash::FxHashMap;
+
 use super::{CheckInfo, Needs};
 use crate::analysis::{Phrase, RuleRef};
 use crate::lint::{Context, Finding, quoted_list};
@@ -58,9 +62,17 @@ fn set_findings(cx: &Context, i: usize, phrases: &[(&Phrase, &Term)], out: &mut 
         );
         return;
     }
-    for (k, (phrase, term)) in phrases.iter().enumerate() {
-        if let Some((_, earlier)) = phrases[..k].iter().find(|(p, _)| p == phrase) {
-            out.push(repeated(cx, rule, term, earlier, phrase, "member"));
+    // The first member with each phrase: one look-up per member, not a scan of the
+    // members before it (quadratic in a set of 100k members).
+    let mut first_with: FxHashMap<&Phrase, &Term> = FxHashMap::default();
+    for (phrase, term) in phrases {
+        match first_with.entry(phrase) {
+            Entry::Occupied(earlier) => {
+                out.push(repeated(cx, rule, term, earlier.get(), phrase, "member"));
+            }
+            Entry::Vacant(slot) => {
+                slot.insert(term);
+            }
         }
     }
 }
@@ -70,7 +82,15 @@ fn one_way_findings(cx: &Context, i: usize, phrases: &[(&Phrase, &Term)], out: &
     let Some(((from, from_term), targets)) = phrases.split_first() else {
         return;
     };
-    for (k, (phrase, term)) in targets.iter().enumerate() {
+    let mut first_with: FxHashMap<&Phrase, &Term> = FxHashMap::default();
+    for (phrase, term) in targets {
+        let earlier = match first_with.entry(phrase) {
+            Entry::Occupied(earlier) => Some(*earlier.get()),
+            Entry::Vacant(slot) => {
+                slot.insert(term);
+                None
+            }
+        };
         if phrase == from {
             out.push(
                 Finding::new(
@@ -88,7 +108,7 @@ fn one_way_findings(cx: &Context, i: usize, phrases: &[(&Phrase, &Term)], out: &
                 .related(&from_term.origin, "the source", Some(rule))
                 .help("remove the target; a search for the source already finds it"),
             );
-        } else if let Some((_, earlier)) = targets[..k].iter().find(|(p, _)| p == phrase) {
+        } else if let Some(earlier) = earlier {
             out.push(repeated(cx, rule, term, earlier, phrase, "target"));
         }
     }

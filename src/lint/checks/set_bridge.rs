@@ -1,7 +1,7 @@
 //! `set-bridge`: a key that is a member of two or more equivalent sets.
 
 use petgraph::graph::NodeIndex;
-use rustc_hash::FxHashSet;
+use rustc_hash::{FxHashMap, FxHashSet};
 
 use super::{CheckInfo, Needs, written};
 use crate::analysis::{Phrase, RuleRef};
@@ -28,26 +28,32 @@ pub const INFO: CheckInfo = CheckInfo {
 };
 
 pub fn run(cx: &Context, out: &mut Vec<Finding>) {
+    // Each set's content is worked out once, however many of its keys are looked at: a
+    // set of 100k members sorted once per member was quadratic.
+    let mut contents = Contents::default();
     for (node, n) in cx.graph.nodes() {
         if !matches!(n.kind, NodeKind::Key(_)) || cx.graph.set_count(node) < 2 {
             continue;
         }
-        let sets = distinct_sets(cx, node);
+        let sets = distinct_sets(cx, node, &mut contents);
         if sets.len() >= 2 {
             out.push(finding(cx, node, &sets));
         }
     }
 }
 
-/// The sets a key is in, leaving out any set that says exactly what an earlier one says
-/// (`duplicate-rule` reports those): `(hub, member edge)` in rule order.
-fn distinct_sets<'g>(cx: &Context<'g>, node: NodeIndex) -> Vec<(NodeIndex, &'g Edge)> {
-    let mut seen: FxHashSet<Vec<Phrase>> = FxHashSet::default();
-    let mut out = Vec::new();
-    for (hub, edge) in cx.graph.sets_of(node) {
-        // The same key twice in one set is redundant-member's business, not a bridge.
-        if out.iter().any(|(h, _): &(NodeIndex, &Edge)| *h == hub) {
-            continue;
+/// Each set's content (its member keys, sorted, without repeats) as a number: two sets
+/// with the same number say the same thing.
+#[derive(Default)]
+struct Contents {
+    of_hub: FxHashMap<NodeIndex, usize>,
+    ids: FxHashMap<Vec<Phrase>, usize>,
+}
+
+impl Contents {
+    fn id(&mut self, cx: &Context, hub: NodeIndex) -> usize {
+        if let Some(&id) = self.of_hub.get(&hub) {
+            return id;
         }
         let mut content: Vec<Phrase> = cx
             .graph
@@ -60,11 +66,34 @@ fn distinct_sets<'g>(cx: &Context<'g>, node: NodeIndex) -> Vec<(NodeIndex, &'g E
             .collect();
         content.sort_unstable();
         content.dedup();
-        if seen.insert(content) {
-            out.push((hub, edge));
+        let next = self.ids.len();
+        let id = *self.ids.entry(content).or_insert(next);
+        self.of_hub.insert(hub, id);
+        id
+    }
+}
+
+/// The sets a key is in, leaving out any set that says exactly what an earlier one says
+/// (`duplicate-rule` reports those): `(hub, member edge)` in rule order.
+fn distinct_sets<'g>(
+    cx: &Context<'g>,
+    node: NodeIndex,
+    contents: &mut Contents,
+) -> Vec<(NodeIndex, &'g Edge)> {
+    let mut hubs: Vec<(NodeIndex, &'g Edge)> = Vec::new();
+    for (hub, edge) in cx.graph.sets_of(node) {
+        // The same key twice in one set is redundant-member's business, not a bridge.
+        if !hubs.iter().any(|(h, _)| *h == hub) {
+            hubs.push((hub, edge));
         }
     }
-    out
+    if hubs.len() < 2 {
+        return hubs;
+    }
+    let mut seen: FxHashSet<usize> = FxHashSet::default();
+    hubs.into_iter()
+        .filter(|(hub, _)| seen.insert(contents.id(cx, *hub)))
+        .collect()
 }
 
 fn finding(cx: &Context, node: NodeIndex, sets: &[(NodeIndex, &Edge)]) -> Finding {
