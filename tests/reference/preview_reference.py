@@ -20,8 +20,8 @@ Usage:
   preview_reference.py scores CORPUS FIELD QUERIES_TSV JUDGED_QUERIES
       Prints JSON: for every judged query, the BM25 score of every document that contains a
       query term, by bm25s 0.3.16 (method "atire" for the term-frequency part,
-      tf*(k1+1)/(tf + k1*(1-b+b*dl/avgdl)), with idf_method "lucene",
-      ln(1 + (N-df+0.5)/(df+0.5)), k1 = 1.2, b = 0.75, float64), and the cosine score by
+      tf*(k1+1)/(tf + k1*(1-b+b*dl/avgdl)), with its BM25L idf, ln((N+1)/(df+0.5)), which
+      equals ln(1 + (N-df+0.5)/(df+0.5)); k1 = 1.2, b = 0.75, float64), and the cosine score by
       scikit-learn 1.9.1 (TfidfTransformer with sublinear_tf, i.e. 1 + ln tf, L2-normalized,
       its idf set to ln(N/df)): the sum of the normalized document weights of the query's
       terms. Documents and queries are split on whitespace (the rulesets above make a key
@@ -150,7 +150,9 @@ def scores(corpus_path, field, queries_path, judged_queries_path):
                 qid, text = line.rstrip("\n").split("\t", 1)
                 texts[qid] = text.lower().split()
 
-    bm25 = bm25s.BM25(k1=1.2, b=0.75, method="atire", idf_method="lucene", dtype="float64")
+    # bm25s's BM25L idf is ln((N + 1)/(df + 0.5)), which is ln(1 + (N - df + 0.5)/(df + 0.5))
+    # written another way: the idf lexdelta uses.
+    bm25 = bm25s.BM25(k1=1.2, b=0.75, method="atire", idf_method="bm25l", dtype="float64")
     bm25.index(tokens, show_progress=False)
 
     counts = CountVectorizer(analyzer=lambda d: d, lowercase=False)
