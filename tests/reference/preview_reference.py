@@ -31,7 +31,6 @@ tests/preview_reference.rs drives this script and compares lexdelta against it.
 """
 
 import json
-import math
 import random
 import sys
 
