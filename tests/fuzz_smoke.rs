@@ -13,7 +13,7 @@ mod fuzz_harness;
 
 use std::time::{Duration, Instant};
 
-use fuzz_harness::{Tally, fuzz_cache, fuzz_for, fuzz_rules};
+use fuzz_harness::{Tally, fuzz_cache, fuzz_for, fuzz_readers, fuzz_rules};
 
 fn report(tally: &Tally, took: Duration) -> String {
     let mut out = format!(
@@ -63,9 +63,17 @@ fn fuzz_long() {
     fuzz_rules(seed, inputs, &mut tally);
     let rules_took = start.elapsed();
     eprintln!("rules+analyzer: {}", report(&tally, rules_took));
+    let readers_inputs: u64 = std::env::var("LEXDELTA_FUZZ_READER_INPUTS")
+        .ok()
+        .and_then(|v| v.parse().ok())
+        .unwrap_or(inputs / 10);
+    let mut readers = Tally::default();
+    let start = Instant::now();
+    fuzz_readers(seed, readers_inputs, &mut readers);
+    eprintln!("readers: {}", report(&readers, start.elapsed()));
     let mut cache = Tally::default();
     let start = Instant::now();
     fuzz_cache(seed, cache_inputs, &mut cache);
     eprintln!("cache: {}", report(&cache, start.elapsed()));
-    assert!(tally.findings.is_empty() && cache.findings.is_empty());
+    assert!(tally.findings.is_empty() && readers.findings.is_empty() && cache.findings.is_empty());
 }

@@ -7,6 +7,8 @@
 //!   Unicode and control characters), then mutated byte-wise; loaded, compiled and, when
 //!   they compile, run through the analyzer and (one input in 50) lint;
 //! - analyzer: every compiled ruleset keys, traces and expands hostile texts;
+//! - readers: documents (JSON Lines, CSV), query logs (every layout) and judgments (qrels,
+//!   CSV) built from their formats' pieces and mutated, written to files and read;
 //! - cache opener: a cached index copied and damaged (bytes flipped with or without the
 //!   modification time put back, files cut short, deleted or added, the manifest edited),
 //!   then opened with the check that damage calls for and read whole.
@@ -21,7 +23,7 @@ use std::path::{Path, PathBuf};
 use std::time::{Duration, Instant};
 
 use lexdelta::analysis::{Analyzer, Side, SurfaceStage};
-use lexdelta::corpus::{Corpus, Document, FieldSpec};
+use lexdelta::corpus::{Corpus, DocOptions, Document, FieldSpec, QueryFormat};
 use lexdelta::index::{NoProgress, Verify, open_or_build_checked};
 use lexdelta::lint::{LintConfig, LintInput, lint};
 use lexdelta::rules::{Pipeline, SourceFile, load_sources};
@@ -583,8 +585,172 @@ pub fn fuzz_for(budget: Duration, seed: u64) -> Tally {
     let mut next = seed;
     while start.elapsed() < budget {
         fuzz_rules(next, 200, &mut tally);
+        fuzz_readers(next, 50, &mut tally);
         fuzz_cache(next, 2, &mut tally);
         next += 200;
     }
     tally
+}
+
+/// A value of a JSON Lines field: usually a string of words, sometimes not a string.
+fn json_value(rng: &mut ChaCha8Rng) -> String {
+    match rng.random_range(0..12) {
+        0 => rng.random_range(-5i64..100_000).to_string(),
+        1 => "null".into(),
+        2 => "[\"a\", 1]".into(),
+        3 => "{\"x\": \"y\"}".into(),
+        4 => "18446744073709551616".into(),
+        5 => "1e400".into(),
+        _ => serde_json::to_string(&text(rng)).unwrap(),
+    }
+}
+
+/// A documents file: JSON Lines or CSV, from the formats' own pieces, then mutated.
+pub fn documents_file(rng: &mut ChaCha8Rng) -> String {
+    let fields = ["id", "title", "body", "section", "ID", ""];
+    let mut out = String::new();
+    if rng.random_ratio(1, 20) {
+        out.push('\u{feff}');
+    }
+    let rows = rng.random_range(0..8);
+    if rng.random_bool(0.5) {
+        for i in 0..rows {
+            let mut parts = Vec::new();
+            if rng.random_ratio(9, 10) {
+                parts.push(format!("\"id\": \"d{}\"", i % 5));
+            }
+            for key in ["title", "body"] {
+                if rng.random_ratio(4, 5) {
+                    parts.push(format!(
+                        "\"{key}\": {}",
+                        serde_json::to_string(&text(rng)).unwrap()
+                    ));
+                }
+            }
+            for _ in 0..rng.random_range(0..3) {
+                let key = fields.choose(rng).unwrap();
+                parts.push(format!("\"{key}\": {}", json_value(rng)));
+            }
+            out.push_str(&format!("{{{}}}\n", parts.join(", ")));
+            if rng.random_ratio(1, 6) {
+                out.push_str("\n  \n");
+            }
+        }
+    } else {
+        let header: Vec<&str> = (0..rng.random_range(0..5))
+            .map(|_| *fields.choose(rng).unwrap())
+            .collect();
+        out.push_str(&header.join(","));
+        out.push('\n');
+        for _ in 0..rows {
+            let cells: Vec<String> = (0..rng.random_range(0..6))
+                .map(|_| match rng.random_range(0..4) {
+                    0 => format!("\"{}\"", text(rng).replace('"', "\"\"")),
+                    1 => "\"unclosed".into(),
+                    _ => word(rng),
+                })
+                .collect();
+            out.push_str(&cells.join(","));
+            out.push('\n');
+        }
+    }
+    sometimes_mutated(rng, out)
+}
+
+/// The text as built, or (one time in three) mutated: most inputs keep their format, so
+/// the readers' paths past the first error are reached too.
+fn sometimes_mutated(rng: &mut ChaCha8Rng, text: String) -> String {
+    if rng.random_ratio(1, 3) {
+        mutate(rng, text)
+    } else {
+        text
+    }
+}
+
+/// A query log in any of its layouts, then mutated.
+pub fn query_file(rng: &mut ChaCha8Rng) -> String {
+    let mut out = String::new();
+    for _ in 0..rng.random_range(0..8) {
+        let query = text(rng).replace(['\n', '\t'], " ");
+        let line = match rng.random_range(0..5) {
+            0 => format!(
+                "{{\"query\": {}, \"count\": {}, \"clicks\": {{\"d1\": {}}}}}",
+                serde_json::to_string(&query).unwrap(),
+                json_value(rng),
+                json_value(rng)
+            ),
+            1 => format!(
+                "{query}\t{}",
+                ["3", "-1", "0", "18446744073709551615", "1.5", "x", ""]
+                    .choose(rng)
+                    .unwrap()
+            ),
+            2 => format!("q{}\t{query}", rng.random_range(0..5)),
+            _ => query,
+        };
+        out.push_str(&line);
+        out.push('\n');
+    }
+    sometimes_mutated(rng, out)
+}
+
+/// A judgments file, TREC qrels or CSV, then mutated.
+pub fn judgments_file(rng: &mut ChaCha8Rng) -> String {
+    let mut out = String::new();
+    let csv = rng.random_bool(0.4);
+    if csv {
+        out.push_str("query_id,query,doc_id,relevance\n");
+    }
+    for _ in 0..rng.random_range(0..8) {
+        let grade = ["0", "1", "3", "-1", "2.5", "x", "99999999999"]
+            .choose(rng)
+            .unwrap();
+        let (q, d) = (rng.random_range(0..4), rng.random_range(0..6));
+        if csv {
+            out.push_str(&format!("q{q},{},d{d},{grade}\n", word(rng)));
+        } else {
+            out.push_str(&format!("q{q} 0 d{d} {grade}\n"));
+        }
+    }
+    sometimes_mutated(rng, out)
+}
+
+/// Documents, query logs and judgments from `seed` on: `inputs` of each, written to files
+/// and read by the library's readers (queries in the layout the content shows and in
+/// every layout asked for by name).
+pub fn fuzz_readers(seed: u64, inputs: u64, tally: &mut Tally) {
+    let dir = tempfile::tempdir().expect("a temporary directory");
+    let (docs, queries, judgments, texts) = (
+        dir.path().join("docs"),
+        dir.path().join("queries"),
+        dir.path().join("judgments"),
+        dir.path().join("texts"),
+    );
+    for i in 0..inputs {
+        let seed = seed.wrapping_add(i);
+        let mut rng = ChaCha8Rng::seed_from_u64(seed);
+        let files = [
+            documents_file(&mut rng),
+            query_file(&mut rng),
+            judgments_file(&mut rng),
+            query_file(&mut rng),
+        ];
+        for (path, text) in [&docs, &queries, &judgments, &texts].iter().zip(&files) {
+            std::fs::write(path, text).expect("write a fuzz input");
+        }
+        let input = files.join("\n----\n");
+        run_one(tally, "readers", seed, &input, || {
+            let read = lexdelta::corpus::read_documents(&docs, &DocOptions::default());
+            let loaded = read.is_ok();
+            let _ = read.map_err(|e| e.to_string());
+            let _ = lexdelta::corpus::read_queries_as(&queries, None).map_err(|e| e.to_string());
+            for format in QueryFormat::ALL {
+                let _ = lexdelta::corpus::read_queries_as(&queries, Some(format))
+                    .map_err(|e| e.to_string());
+            }
+            let _ = lexdelta::corpus::read_judgments(&judgments, Some(&texts))
+                .map_err(|e| e.to_string());
+            loaded
+        });
+    }
 }
