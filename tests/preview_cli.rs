@@ -171,20 +171,8 @@ fn bad_input_exits_2_with_the_line() {
     let dir = tempfile::tempdir().unwrap();
     let queries = dir.path().join("q.tsv");
     std::fs::write(&queries, "pram\t3\nbus\tmany\n").unwrap();
-    let out = Command::cargo_bin("lexdelta")
-        .unwrap()
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .args([
-            "preview",
-            "--base",
-            "rules",
-            "--head",
-            "demo-corpus/proposed",
-            "--corpus",
-            "demo-corpus/documents.jsonl",
-            "--no-cache",
-            "--queries",
-        ])
+    let out = preview_of_rules()
+        .args(["--corpus", "demo-corpus/documents.jsonl", "--queries"])
         .arg(&queries)
         .output()
         .unwrap();
@@ -192,21 +180,25 @@ fn bad_input_exits_2_with_the_line() {
     assert!(String::from_utf8_lossy(&out.stderr).contains("q.tsv:2:"));
 }
 
+/// `preview` of the demo's live rules against its proposed change, with no cache.
+fn preview_of_rules() -> Command {
+    let mut cmd = Command::cargo_bin("lexdelta").unwrap();
+    cmd.current_dir(env!("CARGO_MANIFEST_DIR")).args([
+        "preview",
+        "--base",
+        "rules",
+        "--head",
+        "demo-corpus/proposed",
+        "--no-cache",
+    ]);
+    cmd
+}
+
 /// A preview over a small corpus and log written into `dir`, with run files.
 fn preview_with_runs(dir: &std::path::Path, corpus: &str, queries: &str) -> std::process::Output {
     std::fs::write(dir.join("docs.jsonl"), corpus).unwrap();
     std::fs::write(dir.join("q.tsv"), queries).unwrap();
-    Command::cargo_bin("lexdelta")
-        .unwrap()
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .args([
-            "preview",
-            "--base",
-            "rules",
-            "--head",
-            "demo-corpus/proposed",
-            "--no-cache",
-        ])
+    preview_of_rules()
         .arg("--corpus")
         .arg(dir.join("docs.jsonl"))
         .arg("--queries")

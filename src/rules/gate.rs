@@ -109,11 +109,6 @@ impl Limit {
         SPECS.iter().map(|s| s.key).collect()
     }
 
-    /// The limit whose key this is.
-    pub fn from_key(key: &str) -> Option<Limit> {
-        SPECS.iter().find(|s| s.key == key).map(|s| s.limit)
-    }
-
     /// Reads a value written as text (on the command line), with the kind's range check.
     pub fn parse(self, text: &str) -> Result<LimitValue, String> {
         let text = text.trim();
@@ -135,7 +130,7 @@ impl Limit {
     }
 
     /// The range check of a share or a drop: a finite number from 0 to 1.
-    pub fn check_fraction(self, v: f64) -> Result<f64, String> {
+    fn check_fraction(self, v: f64) -> Result<f64, String> {
         if v.is_finite() && (0.0..=1.0).contains(&v) {
             Ok(v)
         } else {
@@ -229,7 +224,7 @@ mod tests {
         let keys: std::collections::BTreeSet<&str> = Limit::ALL.iter().map(|l| l.key()).collect();
         assert_eq!(keys.len(), Limit::ALL.len());
         for limit in Limit::ALL {
-            assert_eq!(Limit::from_key(limit.key()), Some(limit));
+            assert_eq!(limit.spec().limit, limit);
             assert_eq!(limit.spec().option, limit.key().replace('_', "-"));
         }
     }
